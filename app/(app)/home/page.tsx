@@ -1,0 +1,69 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { requireUser } from '@/lib/auth/session';
+import { getCooperative, listEvaporators, listSeasons } from '@/lib/coop';
+import { listUpcomingSlots } from '@/lib/slots';
+import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
+import { buttonVariants } from '@/components/ui/button';
+import { formatSlotRange } from '@/lib/time';
+
+export const metadata: Metadata = { title: 'Today' };
+
+export default async function HomePage() {
+  const user = await requireUser({ onFail: 'redirect' });
+  const [coop, seasons, evaporators, upcoming] = await Promise.all([
+    getCooperative({ cooperativeId: user.cooperativeId }),
+    listSeasons({ cooperativeId: user.cooperativeId }),
+    listEvaporators({ cooperativeId: user.cooperativeId }),
+    listUpcomingSlots({ cooperativeId: user.cooperativeId, householdId: user.role === 'member' ? user.householdId : null, limit: 5 }),
+  ]);
+  const open = seasons.find((s) => s.status === 'open');
+  return (
+    <div className="flex flex-col gap-6">
+      <div>
+        <h1 className="text-3xl font-bold">Today at {coop.name}</h1>
+        <p className="text-slate-muted">
+          {open ? `${open.label} is open: ${open.startsOn} to ${open.endsOn}.` : 'No season is open right now.'}
+        </p>
+      </div>
+      <div className="grid gap-6 md:grid-cols-2">
+        <Card>
+          <CardHeader>
+            <CardTitle>{user.role === 'member' ? 'Your next boil slots' : 'Next boil slots'}</CardTitle>
+          </CardHeader>
+          <CardBody className="flex flex-col gap-3">
+            {upcoming.length === 0 ? (
+              <p className="text-slate-muted">Nothing booked yet.</p>
+            ) : (
+              <ul className="flex flex-col gap-2">
+                {upcoming.map((s) => (
+                  <li key={s.id} className="rounded-lg border border-birch-line p-3">
+                    <span className="font-semibold">{s.householdName}</span>
+                    <span className="block text-slate-muted">{formatSlotRange(s.startsAt, s.endsAt, coop.timeZone)}</span>
+                  </li>
+                ))}
+              </ul>
+            )}
+            <Link href="/calendar" className={buttonVariants({ variant: 'primary' })}>
+              Open the Boil calendar
+            </Link>
+          </CardBody>
+        </Card>
+        <Card>
+          <CardHeader>
+            <CardTitle>The sugarhouse</CardTitle>
+          </CardHeader>
+          <CardBody>
+            <ul className="flex flex-col gap-1">
+              {evaporators.map((e) => (
+                <li key={e.id}>
+                  {e.name}: {e.evaporationLph} L of water an hour, {e.fuelKind}-fired
+                </li>
+              ))}
+            </ul>
+          </CardBody>
+        </Card>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,18 @@
+import type { Metadata } from 'next';
+import { requireRole } from '@/lib/auth/session';
+import { HouseholdsManager } from '@/components/households/households-manager';
+
+export const metadata: Metadata = { title: 'Households' };
+
+export default async function HouseholdsPage() {
+  await requireRole(['coordinator'], { onFail: 'redirect' });
+  return (
+    <div className="flex flex-col gap-6">
+      <div>
+        <h1 className="text-3xl font-bold">Households</h1>
+        <p className="text-slate-muted">The co-op’s households, their people and what each may do.</p>
+      </div>
+      <HouseholdsManager />
+    </div>
+  );
+}

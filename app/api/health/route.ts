@@ -1,0 +1,24 @@
+import { NextResponse } from 'next/server';
+import { getSequelize } from '@/db';
+import { mailHealthy } from '@/lib/mail/transport';
+
+export const dynamic = 'force-dynamic';
+
+async function databaseHealthy() {
+  try {
+    await getSequelize().query('SELECT 1');
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/** Liveness of the app and the two services it needs; 503 when either is down. */
+export async function GET() {
+  const [database, mail] = await Promise.all([databaseHealthy(), mailHealthy()]);
+  const ok = database && mail;
+  return NextResponse.json(
+    { ok, database: database ? 'up' : 'down', mail: mail ? 'up' : 'down' },
+    { status: ok ? 200 : 503 },
+  );
+}

@@ -1,0 +1,40 @@
+import { getSequelize } from '@/db';
+import { createMigrator } from '@/db/migrator';
+import { db } from '@/db/models';
+import { seedDemo, truncateAll } from '@/db/seeds/demo';
+
+/** npm run db:migrate | db:rollback [-- --to 0] | db:seed [-- --if-empty | --reset] */
+async function main() {
+  const [command, ...args] = process.argv.slice(2);
+  const sequelize = getSequelize();
+  const migrator = createMigrator(sequelize, { quiet: args.includes('--quiet') });
+  try {
+    if (command === 'migrate') {
+      const done = await migrator.up();
+      console.log(done.length ? `Applied ${done.length} migration(s).` : 'Database is up to date.');
+    } else if (command === 'rollback') {
+      const toZero = args.includes('--to') && args[args.indexOf('--to') + 1] === '0';
+      const undone = await migrator.down(toZero ? { to: 0 } : undefined);
+      console.log(`Rolled back ${undone.length} migration(s).`);
+    } else if (command === 'seed') {
+      const { Cooperative } = db();
+      if (args.includes('--reset')) await truncateAll();
+      else if ((await Cooperative.count()) > 0) {
+        console.log('Demo data already loaded; leaving the database as it is.');
+        return;
+      }
+      await seedDemo();
+      console.log('Loaded the demo co-op (Larkspur Hollow Sugar Cooperative).');
+    } else {
+      console.error('usage: db/cli.ts migrate | rollback [--to 0] | seed [--reset]');
+      process.exitCode = 2;
+    }
+  } finally {
+    await sequelize.close();
+  }
+}
+
+main().catch((err) => {
+  console.error(err instanceof Error ? err.message : err);
+  process.exit(1);
+});

@@ -1,0 +1,15 @@
+import type { MigrationFn } from 'umzug';
+import type { QueryInterface } from 'sequelize';
+import * as base from './20261201-0001-base';
+import * as boilSlots from './20261201-0002-boil-slots';
+
+interface MigrationModule {
+  up: MigrationFn<QueryInterface>;
+  down: MigrationFn<QueryInterface>;
+}
+
+/** Every migration, oldest first. A new one is a new timestamped file added at the end. */
+export const migrations: { name: string; module: MigrationModule }[] = [
+  { name: '20261201-0001-base', module: base },
+  { name: '20261201-0002-boil-slots', module: boilSlots },
+];

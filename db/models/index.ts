@@ -1,0 +1,40 @@
+import type { Sequelize } from 'sequelize';
+import { getSequelize } from '@/db';
+import { Cooperative } from './cooperative';
+import { Household } from './household';
+import { User } from './user';
+import { Season } from './season';
+import { Evaporator } from './evaporator';
+import { BoilSlot } from './boil-slot';
+
+export { Cooperative, Household, User, Season, Evaporator, BoilSlot };
+export type { Role } from './user';
+export { ROLES } from './user';
+
+const models = { Cooperative, Household, User, Season, Evaporator, BoilSlot };
+export type Models = typeof models;
+
+// Per module instance: Next bundles its own copy of these classes beside the custom server's.
+let boundTo: Sequelize | undefined;
+
+function wire(sequelize: Sequelize) {
+  for (const m of Object.values(models)) m.initModel(sequelize);
+  Household.hasMany(User, { foreignKey: 'householdId', as: 'people' });
+  User.belongsTo(Household, { foreignKey: 'householdId', as: 'household' });
+  Cooperative.hasMany(Household, { foreignKey: 'cooperativeId' });
+  Cooperative.hasMany(Evaporator, { foreignKey: 'cooperativeId' });
+  Cooperative.hasMany(Season, { foreignKey: 'cooperativeId' });
+  BoilSlot.belongsTo(Household, { foreignKey: 'householdId', as: 'household' });
+  BoilSlot.belongsTo(Evaporator, { foreignKey: 'evaporatorId', as: 'evaporator' });
+  BoilSlot.belongsTo(Season, { foreignKey: 'seasonId', as: 'season' });
+}
+
+/** The models, bound once to the shared Sequelize instance. */
+export function db(): Models & { sequelize: Sequelize } {
+  const sequelize = getSequelize();
+  if (boundTo !== sequelize) {
+    wire(sequelize);
+    boundTo = sequelize;
+  }
+  return { ...models, sequelize };
+}

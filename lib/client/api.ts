@@ -1,0 +1,33 @@
+/** An error answer of the API, with the message and per-field messages it carried. */
+export class ApiClientError extends Error {
+  constructor(
+    public readonly status: number,
+    message: string,
+    public readonly fields: Record<string, string> = {},
+    public readonly body: Record<string, unknown> = {},
+  ) {
+    super(message);
+  }
+}
+
+async function parse(res: Response) {
+  const text = await res.text();
+  const body = text ? JSON.parse(text) : null;
+  if (!res.ok) {
+    const err = body?.error ?? {};
+    throw new ApiClientError(res.status, err.message ?? `The request failed (${res.status}).`, err.fields ?? {}, err);
+  }
+  return body;
+}
+
+/** SWR's fetcher: GET as JSON, throwing ApiClientError on an error answer. */
+export const fetcher = (url: string) => fetch(url, { headers: { accept: 'application/json' } }).then(parse);
+
+/** A JSON write to the API. */
+export function apiSend<T = unknown>(method: 'POST' | 'PATCH' | 'DELETE', url: string, body?: unknown): Promise<T> {
+  return fetch(url, {
+    method,
+    headers: { 'content-type': 'application/json', accept: 'application/json' },
+    body: body === undefined ? undefined : JSON.stringify(body),
+  }).then(parse);
+}

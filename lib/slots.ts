@@ -1,0 +1,333 @@
+import 'server-only';
+import { DateTime } from 'luxon';
+import { Op, type Transaction } from 'sequelize';
+import { db, type BoilSlot, type Cooperative } from '@/db/models';
+import { ApiError } from '@/lib/api/errors';
+import type { SessionUser } from '@/lib/auth/session';
+import { enqueueMail } from '@/lib/mail/outbox';
+import { slotIcs } from '@/lib/mail/ics';
+import { broadcast } from '@/lib/realtime';
+import { clockLabel, clockMinutes, formatSlotRange, localDay, localMinutes, toZonedIso } from '@/lib/time';
+import type { SlotInput, SlotPatch } from '@/lib/validations/slots';
+import { appUrl } from '@/lib/env';
+
+export interface SlotDto {
+  id: string;
+  evaporatorId: string;
+  householdId: string;
+  householdName: string;
+  startsAt: string;
+  endsAt: string;
+  status: 'booked' | 'cancelled' | 'done';
+  crew: string[];
+  expectedSapL: number | null;
+  note: string | null;
+  /** True when the signed-in person's household crews it (or they are staff): they may change it. */
+  editable: boolean;
+}
+
+const isStaff = (u: SessionUser) => u.role === 'coordinator' || u.role === 'sugarmaker';
+
+function toDto(slot: BoilSlot, householdName: string, user: SessionUser, zone: string): SlotDto {
+  const own = isStaff(user) || slot.householdId === user.householdId;
+  return {
+    id: slot.id,
+    evaporatorId: slot.evaporatorId,
+    householdId: slot.householdId,
+    householdName,
+    startsAt: toZonedIso(slot.startsAt, zone),
+    endsAt: toZonedIso(slot.endsAt, zone),
+    status: slot.status,
+    // Other households' slots show only who crews them.
+    crew: own ? slot.crew : [],
+    expectedSapL: own ? slot.expectedSapL : null,
+    note: own ? slot.note : null,
+    editable: own && slot.status === 'booked',
+  };
+}
+
+async function coopOf(cooperativeId: string, transaction?: Transaction): Promise<Cooperative> {
+  const coop = await db().Cooperative.findByPk(cooperativeId, { transaction });
+  if (!coop) throw new ApiError(404, 'Your cooperative was not found.');
+  return coop;
+}
+
+/** A query boundary: a day is the start of that day in the co-op's zone. */
+function boundary(value: string, zone: string): Date {
+  return /^\d{4}-\d{2}-\d{2}$/.test(value) ? DateTime.fromISO(value, { zone }).toJSDate() : new Date(value);
+}
+
+/** Active slots (booked or done) overlapping [from, to). */
+export async function listSlots({ user, from, to }: { user: SessionUser; from: string; to: string }): Promise<SlotDto[]> {
+  const { BoilSlot, Household } = db();
+  const coop = await coopOf(user.cooperativeId);
+  const slots = await BoilSlot.findAll({
+    where: {
+      cooperativeId: user.cooperativeId,
+      status: { [Op.ne]: 'cancelled' },
+      startsAt: { [Op.lt]: boundary(to, coop.timeZone) },
+      endsAt: { [Op.gt]: boundary(from, coop.timeZone) },
+    },
+    include: [{ model: Household, as: 'household', attributes: ['name'] }],
+    order: [['startsAt', 'ASC']],
+  });
+  return slots.map((s) => toDto(s, (s as unknown as { household: { name: string } }).household.name, user, coop.timeZone));
+}
+
+/** The next booked slots, for the Today page (one household's, or everyone's). */
+export async function listUpcomingSlots({ cooperativeId, householdId, limit }: { cooperativeId: string; householdId: string | null; limit: number }) {
+  const { BoilSlot, Household } = db();
+  const rows = await BoilSlot.findAll({
+    where: {
+      cooperativeId,
+      status: 'booked',
+      endsAt: { [Op.gt]: new Date() },
+      ...(householdId ? { householdId } : {}),
+    },
+    include: [{ model: Household, as: 'household', attributes: ['name'] }],
+    order: [['startsAt', 'ASC']],
+    limit,
+  });
+  return rows.map((s) => ({
+    id: s.id,
+    startsAt: s.startsAt,
+    endsAt: s.endsAt,
+    householdName: (s as unknown as { household: { name: string } }).household.name,
+  }));
+}
+
+interface Window {
+  startsAt: Date;
+  endsAt: Date;
+}
+
+/** The co-op's booking rules for one slot; answers 422 naming the field at fault. */
+async function checkRules(
+  { user, coop, w, transaction }: { user: SessionUser; coop: Cooperative; w: Window; transaction: Transaction },
+) {
+  const minutes = (w.endsAt.getTime() - w.startsAt.getTime()) / 60_000;
+  if (minutes < coop.slotMinMinutes || minutes > coop.slotMaxMinutes) {
+    throw new ApiError(422, 'That slot length is outside the co-op’s rules.', {
+      endsAt: `A slot lasts from ${coop.slotMinMinutes / 60} to ${coop.slotMaxMinutes / 60} hours (this one: ${+(minutes / 60).toFixed(2)} h).`,
+    });
+  }
+  const zone = coop.timeZone;
+  const startDay = localDay(w.startsAt, zone);
+  const endDay = localDay(new Date(w.endsAt.getTime() - 1), zone);
+  const season = await db().Season.findOne({
+    where: {
+      cooperativeId: coop.id,
+      status: { [Op.in]: ['planned', 'open'] },
+      startsOn: { [Op.lte]: startDay },
+      endsOn: { [Op.gte]: endDay },
+    },
+    transaction,
+  });
+  if (!season) {
+    throw new ApiError(422, 'Slots can only be booked inside an open season.', {
+      startsAt: 'This time is outside the season’s dates.',
+    });
+  }
+  if (!isStaff(user)) {
+    if (w.startsAt.getTime() < Date.now()) {
+      throw new ApiError(422, 'That time has already passed.', { startsAt: 'Choose a start in the future.' });
+    }
+    const opens = clockMinutes(coop.opensAt);
+    const closes = clockMinutes(coop.closesAt);
+    const endMin = localMinutes(w.endsAt, zone) || 24 * 60;
+    if (startDay !== endDay || localMinutes(w.startsAt, zone) < opens || endMin > closes) {
+      throw new ApiError(422, 'Members book inside the sugarhouse hours.', {
+        startsAt: `The sugarhouse is open ${clockLabel(coop.opensAt)}–${clockLabel(coop.closesAt)}; a sugarmaker can book other hours.`,
+      });
+    }
+  }
+  return season;
+}
+
+/** Turns the database's refusal of an overlap into a 409 naming the slot in the way. */
+async function conflictError(evaporatorId: string, w: Window, excludeId: string | null, zone: string): Promise<ApiError> {
+  const { BoilSlot, Household } = db();
+  const other = await BoilSlot.findOne({
+    where: {
+      evaporatorId,
+      status: { [Op.ne]: 'cancelled' },
+      startsAt: { [Op.lt]: w.endsAt },
+      endsAt: { [Op.gt]: w.startsAt },
+      ...(excludeId ? { id: { [Op.ne]: excludeId } } : {}),
+    },
+    include: [{ model: Household, as: 'household', attributes: ['name'] }],
+  });
+  if (!other) return new ApiError(409, 'That time was just taken by another booking. Pick another time.');
+  const name = (other as unknown as { household: { name: string } }).household.name;
+  const when = formatSlotRange(other.startsAt, other.endsAt, zone);
+  return new ApiError(409, `That time overlaps the ${name} household’s slot (${when}). Pick a time around it.`, { startsAt: 'This time is taken.' }, {
+    conflict: { id: other.id, householdName: name, startsAt: toZonedIso(other.startsAt, zone), endsAt: toZonedIso(other.endsAt, zone) },
+  });
+}
+
+const isOverlap = (err: unknown) =>
+  (err as { name?: string })?.name === 'SequelizeExclusionConstraintError' ||
+  (err as { parent?: { code?: string } })?.parent?.code === '23P01';
+
+type SlotMailKind = 'booked' | 'moved' | 'cancelled';
+
+async function queueSlotMail(kind: SlotMailKind, slot: BoilSlot, coop: Cooperative, householdName: string, transaction: Transaction) {
+  const { User, Evaporator } = db();
+  const [people, evaporator] = await Promise.all([
+    User.findAll({ where: { householdId: slot.householdId, cooperativeId: coop.id }, transaction }),
+    Evaporator.findByPk(slot.evaporatorId, { transaction }),
+  ]);
+  const when = formatSlotRange(slot.startsAt, slot.endsAt, coop.timeZone);
+  const subject = {
+    booked: `Boil slot booked: ${when}`,
+    moved: `Boil slot moved: ${when}`,
+    cancelled: `Boil slot cancelled: ${when}`,
+  }[kind];
+  const lead = {
+    booked: `The ${householdName} household is booked to crew a boil on ${evaporator?.name ?? 'the evaporator'}.`,
+    moved: `The ${householdName} household’s boil slot has moved. The new time:`,
+    cancelled: `The ${householdName} household’s boil slot has been cancelled; the time is free for others.`,
+  }[kind];
+  const crew = slot.crew.length ? `\nCrew: ${slot.crew.join(', ')}` : '';
+  const text =
+    `${lead}\n\n${when}\n${coop.name}${crew}\n\n` +
+    (kind === 'cancelled' ? '' : 'Tend the fire with care: boiling sap and syrup burn, keep the firebox door shut between loads, never leave a firing evaporator unattended, and keep the sugarhouse ventilated (carbon monoxide).\n\n') +
+    `The Boil calendar: ${appUrl()}/calendar\n\n— Brixhouse`;
+  const ics = slotIcs({
+    id: slot.id,
+    startsAt: slot.startsAt,
+    endsAt: slot.endsAt,
+    title: `Boil slot – ${householdName} household`,
+    description: `Crew the boil on ${evaporator?.name ?? 'the evaporator'} at ${coop.name}.`,
+    location: coop.name,
+    sequence: Math.max(0, Math.floor((Date.now() - slot.createdAt.getTime()) / 1000)),
+    cancelled: kind === 'cancelled',
+  });
+  await enqueueMail(
+    {
+      to: people.map((p) => p.email),
+      subject,
+      text,
+      attachments: [{ filename: 'boil-slot.ics', content: ics, contentType: `text/calendar; charset=utf-8; method=${kind === 'cancelled' ? 'CANCEL' : 'PUBLISH'}` }],
+    },
+    transaction,
+  );
+}
+
+async function householdName(householdId: string, cooperativeId: string, transaction: Transaction): Promise<string> {
+  const h = await db().Household.findOne({ where: { id: householdId, cooperativeId }, transaction });
+  if (!h) throw new ApiError(422, 'Some fields need another look.', { householdId: 'Choose one of your co-op’s households.' });
+  return h.name;
+}
+
+/** Books a slot in one transaction: rules, the overlap constraint, and the confirmation e-mail. */
+export async function createSlot({ user, input }: { user: SessionUser; input: SlotInput }): Promise<SlotDto> {
+  const { BoilSlot, Evaporator, sequelize } = db();
+  let householdId = input.householdId ?? user.householdId ?? undefined;
+  if (!isStaff(user) && householdId !== user.householdId) {
+    throw new ApiError(403, 'Members book slots for their own household only.');
+  }
+  if (!householdId) {
+    throw new ApiError(422, 'Some fields need another look.', { householdId: 'Choose the household that crews this boil.' });
+  }
+  const w = { startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt) };
+  const coop = await coopOf(user.cooperativeId);
+  try {
+    const dto = await sequelize.transaction(async (transaction) => {
+      const name = await householdName(householdId!, coop.id, transaction);
+      const evaporator = await Evaporator.findOne({ where: { id: input.evaporatorId, cooperativeId: coop.id }, transaction });
+      if (!evaporator) throw new ApiError(422, 'Some fields need another look.', { evaporatorId: 'Choose one of your co-op’s evaporators.' });
+      const season = await checkRules({ user, coop, w, transaction });
+      const slot = await BoilSlot.create(
+        {
+          cooperativeId: coop.id,
+          seasonId: season.id,
+          evaporatorId: evaporator.id,
+          householdId: householdId!,
+          startsAt: w.startsAt,
+          endsAt: w.endsAt,
+          crew: input.crew ?? [],
+          expectedSapL: input.expectedSapL ?? null,
+          note: input.note || null,
+          bookedById: user.id,
+        },
+        { transaction },
+      );
+      await queueSlotMail('booked', slot, coop, name, transaction);
+      return toDto(slot, name, user, coop.timeZone);
+    });
+    broadcast(coop.id, 'slots:changed', { id: dto.id });
+    return dto;
+  } catch (err) {
+    if (isOverlap(err)) throw await conflictError(input.evaporatorId, w, null, coop.timeZone);
+    throw err;
+  }
+}
+
+async function loadOwnSlot(user: SessionUser, id: string, transaction: Transaction) {
+  const slot = await db().BoilSlot.findOne({ where: { id, cooperativeId: user.cooperativeId }, transaction, lock: transaction.LOCK.UPDATE });
+  if (!slot) throw new ApiError(404, 'That boil slot was not found.');
+  if (!isStaff(user) && slot.householdId !== user.householdId) {
+    throw new ApiError(403, 'Members change only their own household’s slots.');
+  }
+  if (slot.status !== 'booked') throw new ApiError(409, `That slot is ${slot.status} and can no longer be changed.`);
+  return slot;
+}
+
+/** Moves a slot or changes its crew or note; a move re-checks the rules and e-mails the household. */
+export async function updateSlot({ user, id, patch }: { user: SessionUser; id: string; patch: SlotPatch }): Promise<SlotDto> {
+  const { sequelize } = db();
+  const coop = await coopOf(user.cooperativeId);
+  let target: { evaporatorId: string; w: Window } | null = null;
+  try {
+    const dto = await sequelize.transaction(async (transaction) => {
+      const slot = await loadOwnSlot(user, id, transaction);
+      const name = await householdName(slot.householdId, coop.id, transaction);
+      const moved =
+        patch.startsAt !== undefined &&
+        patch.endsAt !== undefined &&
+        (new Date(patch.startsAt).getTime() !== slot.startsAt.getTime() || new Date(patch.endsAt).getTime() !== slot.endsAt.getTime());
+      const changes: Partial<BoilSlot> = {};
+      if (moved) {
+        const w = { startsAt: new Date(patch.startsAt!), endsAt: new Date(patch.endsAt!) };
+        target = { evaporatorId: slot.evaporatorId, w };
+        const season = await checkRules({ user, coop, w, transaction });
+        Object.assign(changes, { startsAt: w.startsAt, endsAt: w.endsAt, seasonId: season.id });
+      }
+      if (patch.crew !== undefined) changes.crew = patch.crew;
+      if (patch.note !== undefined) changes.note = patch.note || null;
+      if (patch.expectedSapL !== undefined) changes.expectedSapL = patch.expectedSapL;
+      await slot.update(changes, { transaction });
+      if (moved) await queueSlotMail('moved', slot, coop, name, transaction);
+      return toDto(slot, name, user, coop.timeZone);
+    });
+    broadcast(coop.id, 'slots:changed', { id });
+    return dto;
+  } catch (err) {
+    const t = target as { evaporatorId: string; w: Window } | null;
+    if (isOverlap(err) && t) throw await conflictError(t.evaporatorId, t.w, id, coop.timeZone);
+    throw err;
+  }
+}
+
+/** Cancels a slot (members: their own, and not later than the co-op's notice); frees its time. */
+export async function cancelSlot({ user, id }: { user: SessionUser; id: string }): Promise<SlotDto> {
+  const { sequelize } = db();
+  const coop = await coopOf(user.cooperativeId);
+  const dto = await sequelize.transaction(async (transaction) => {
+    const slot = await loadOwnSlot(user, id, transaction);
+    if (!isStaff(user) && slot.startsAt.getTime() - Date.now() < coop.cancelNoticeHours * 3_600_000) {
+      throw new ApiError(
+        422,
+        `Members can cancel up to ${coop.cancelNoticeHours} hours before a slot starts; ask a sugarmaker to cancel this one.`,
+        { startsAt: 'Too close to the start to cancel.' },
+      );
+    }
+    const name = await householdName(slot.householdId, coop.id, transaction);
+    await slot.update({ status: 'cancelled', cancelledAt: new Date(), cancelledById: user.id }, { transaction });
+    await queueSlotMail('cancelled', slot, coop, name, transaction);
+    return toDto(slot, name, user, coop.timeZone);
+  });
+  broadcast(coop.id, 'slots:changed', { id });
+  return dto;
+}

@@ -1,0 +1,64 @@
+export {
+  MAX_BRIX,
+  SUCROSE_DENSITY_20C,
+  densityFromBrix,
+  icumsaSucroseDensity20C,
+  sugarKg,
+} from './density';
+export {
+  DEFAULT_SYRUP_BRIX,
+  SAP_RATIO_RULES,
+  boilHours,
+  sapToSyrupRatio,
+  syrupLitres,
+  waterToEvaporateL,
+  type SapRatioOptions,
+  type SapRatioRule,
+} from './syrup-yield';
+export {
+  DEFAULT_DRAW_OFF_OFFSET_C,
+  ELEVATION_RANGE_M,
+  PRESSURE_RANGE_KPA,
+  drawOffTemperatureC,
+  saturationTemperatureK,
+  standardPressureKPa,
+  waterBoilingPointC,
+  type BoilingPlace,
+} from './boiling-point';
+export { GRADE_CLASSES, GRADE_CLASS_INFO, gradeClass, type GradeClass, type GradeClassInfo } from './grade';
+export {
+  SPOILAGE_DEFAULTS,
+  SPOILAGE_STATE_DEFAULTS,
+  spoilageDeadline,
+  spoilageState,
+  type SpoilageOptions,
+  type SpoilageState,
+  type SpoilageStateOptions,
+} from './spoilage';
+export {
+  allocate,
+  allocateRun,
+  type Allotment,
+  type RunInputSugar,
+  type RunShare,
+  type RunTotals,
+  type Weight,
+} from './allocate';
+export {
+  KG_PER_POUND,
+  LITRES_PER_US_GALLON,
+  UNIT_SYSTEMS,
+  celsiusToFahrenheit,
+  fahrenheitToCelsius,
+  formatBrix,
+  formatMass,
+  formatMoney,
+  formatTemperature,
+  formatVolume,
+  gallonsToLitres,
+  kgToPounds,
+  litresToGallons,
+  poundsToKg,
+  type FormatOptions,
+  type UnitSystem,
+} from './units';

@@ -1,0 +1,34 @@
+import { z } from 'zod';
+import { ROLES } from '@/lib/roles';
+
+export const HouseholdInput = z.object({
+  name: z.string().trim().min(1, 'Give the household a name.').max(120, 'Keep the name under 120 characters.'),
+});
+export type HouseholdInput = z.infer<typeof HouseholdInput>;
+
+const roleEnum = z.enum(ROLES, { message: 'Choose coordinator, sugarmaker or member.' });
+
+export const PersonInput = z
+  .object({
+    name: z.string().trim().min(1, 'Enter the person’s name.').max(120, 'Keep the name under 120 characters.'),
+    email: z.string().trim().toLowerCase().email('Enter an e-mail address like name@example.org.'),
+    role: roleEnum,
+    householdId: z.string().uuid('Choose a household.').nullish(),
+  })
+  .refine((p) => p.role !== 'member' || !!p.householdId, {
+    path: ['householdId'],
+    message: 'A member belongs to a household: choose one.',
+  });
+export type PersonInput = z.infer<typeof PersonInput>;
+
+export const RoleChange = z
+  .object({
+    role: roleEnum,
+    householdId: z.string().uuid('Choose a household.').nullish(),
+  });
+export type RoleChange = z.infer<typeof RoleChange>;
+
+export const AcceptInvitation = z.object({
+  token: z.string().min(20, 'This invitation link is incomplete.'),
+  password: z.string().min(10, 'Use at least 10 characters.').max(200, 'Keep it under 200 characters.'),
+});

@@ -1,0 +1,57 @@
+import { z } from 'zod';
+
+const instant = z.iso.datetime({ offset: true, message: 'Give a date and time with its offset, e.g. 2027-03-14T09:00:00-04:00.' });
+const crew = z
+  .array(z.string().trim().min(1, 'A crew name cannot be empty.').max(60, 'Keep each crew name under 60 characters.'))
+  .max(12, 'At most 12 people in a crew.');
+const expectedSapL = z
+  .number({ message: 'Expected sap is a number of litres.' })
+  .min(0, 'Expected sap cannot be negative.')
+  .max(100_000, 'That is more sap than an evaporator boils in a slot.')
+  .nullable();
+const note = z.string().trim().max(500, 'Keep the note under 500 characters.').nullable();
+
+const endsAfterStart = (s: { startsAt?: string; endsAt?: string }) =>
+  !s.startsAt || !s.endsAt || Date.parse(s.endsAt) > Date.parse(s.startsAt);
+const endMessage = { path: ['endsAt'], message: 'The slot must end after it starts.' };
+
+export const SlotInput = z
+  .object({
+    evaporatorId: z.string().uuid('Choose an evaporator.'),
+    startsAt: instant,
+    endsAt: instant,
+    householdId: z.string().uuid('Choose a household.').optional(),
+    crew: crew.optional(),
+    expectedSapL: expectedSapL.optional(),
+    note: note.optional(),
+  })
+  .refine(endsAfterStart, endMessage);
+export type SlotInput = z.infer<typeof SlotInput>;
+
+/** A move (new start and end), a crew or a note. */
+export const SlotPatch = z
+  .object({
+    startsAt: instant.optional(),
+    endsAt: instant.optional(),
+    crew: crew.optional(),
+    expectedSapL: expectedSapL.optional(),
+    note: note.optional(),
+  })
+  .refine((p) => (p.startsAt === undefined) === (p.endsAt === undefined), {
+    path: ['endsAt'],
+    message: 'Moving a slot needs both a new start and a new end.',
+  })
+  .refine(endsAfterStart, endMessage);
+export type SlotPatch = z.infer<typeof SlotPatch>;
+
+const boundary = z.union([z.iso.datetime({ offset: true }), z.iso.date()], {
+  message: 'Give a day (YYYY-MM-DD) or a date and time with its offset.',
+});
+
+export const SlotQuery = z
+  .object({ from: boundary, to: boundary })
+  .refine((q) => Date.parse(q.to) > Date.parse(q.from), { path: ['to'], message: '“to” must come after “from”.' })
+  .refine((q) => Date.parse(q.to) - Date.parse(q.from) <= 120 * 86_400_000, {
+    path: ['to'],
+    message: 'Ask for at most 120 days at a time.',
+  });

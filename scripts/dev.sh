@@ -1,0 +1,15 @@
+#!/usr/bin/env bash
+# npm run dev: the same services as npm start, with Next in development mode.
+set -euo pipefail
+source "$(dirname "$0")/lib.sh"
+cd "$ROOT"
+ensure_node_modules
+bash scripts/db.sh start
+export NODE_ENV=development PORT=${PORT:-3000}
+export DATABASE_URL=${DATABASE_URL:-$(database_url brixhouse_dev)}
+export SMTP_PORT=${SMTP_PORT:-1025}
+export APP_URL=${APP_URL:-http://127.0.0.1:$PORT} NEXTAUTH_URL=${APP_URL:-http://127.0.0.1:$PORT}
+bash scripts/mail.sh start maildev "$SMTP_PORT" "${MAIL_WEB_PORT:-1080}"
+npm run --silent db:migrate -- --quiet
+npm run --silent db:seed
+exec node --import tsx server.ts

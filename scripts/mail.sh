@@ -1,0 +1,13 @@
+#!/usr/bin/env bash
+# maildev on loopback: SMTP and its web inbox. Usage: mail.sh start|stop NAME SMTP_PORT WEB_PORT
+set -euo pipefail
+source "$(dirname "$0")/lib.sh"
+action=$1; name=${2:-maildev}; smtp=${3:-1025}; web=${4:-1080}
+case "$action" in
+  start)
+    start_bg "$name" "$ROOT/node_modules/.bin/maildev" --ip 127.0.0.1 --web-ip 127.0.0.1 \
+      --smtp "$smtp" --web "$web" --silent
+    wait_for_url "http://127.0.0.1:$web/api/email"
+    ;;
+  stop) stop_bg "$name" ;;
+esac

@@ -1,0 +1,49 @@
+#!/usr/bin/env bash
+# npm start: install, database, migrations, demo data, mail server, build, serve.
+set -euo pipefail
+source "$(dirname "$0")/lib.sh"
+cd "$ROOT"
+
+ensure_node_modules
+bash scripts/db.sh start
+
+export NODE_ENV=production
+export PORT=${PORT:-3000}
+export DATABASE_URL=${DATABASE_URL:-$(database_url brixhouse_dev)}
+export SMTP_PORT=${SMTP_PORT:-1025}
+MAIL_WEB_PORT=${MAIL_WEB_PORT:-1080}
+export APP_URL=${APP_URL:-http://127.0.0.1:$PORT}
+export NEXTAUTH_URL=$APP_URL
+if [ -z "${NEXTAUTH_SECRET:-}" ]; then
+  [ -f "$DATA_DIR/nextauth-secret" ] || node -e "console.log(require('crypto').randomBytes(32).toString('base64url'))" > "$DATA_DIR/nextauth-secret"
+  export NEXTAUTH_SECRET=$(cat "$DATA_DIR/nextauth-secret")
+fi
+
+log "Starting maildev (SMTP 127.0.0.1:$SMTP_PORT, inbox http://127.0.0.1:$MAIL_WEB_PORT)"
+bash scripts/mail.sh start maildev "$SMTP_PORT" "$MAIL_WEB_PORT"
+
+log "Migrating the database"
+npm run --silent db:migrate -- --quiet
+npm run --silent db:seed
+
+if [ "${SKIP_BUILD:-}" != "1" ]; then
+  log "Building (next build)"
+  npx next build > "$DATA_DIR/build.log" 2>&1 || { tail -n 60 "$DATA_DIR/build.log"; exit 1; }
+fi
+
+cat <<BANNER
+
+  Brixhouse is starting on  $APP_URL
+  Mail inbox (maildev):     http://127.0.0.1:$MAIL_WEB_PORT
+
+  Demo sign-ins (password: syrup-season)
+    coordinator   coordinator@larkspur.example
+    sugarmakers   sugarmaker@larkspur.example, sugarmaker2@larkspur.example
+    members       okafor@, lindqvist@, tremblay-haddad@, nakamura@,
+                  brennan@, szabo@, ferreira@larkspur.example
+
+  Stop everything with: npm run stop
+
+BANNER
+echo $$ > "$DATA_DIR/server.pid"
+exec node --import tsx server.ts

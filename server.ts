@@ -1,0 +1,68 @@
+import { createServer } from 'node:http';
+import next from 'next';
+import { Server } from 'socket.io';
+import { parse as parseCookie } from 'cookie';
+import { decode } from 'next-auth/jwt';
+import { env } from '@/lib/env';
+import { coopRoom, setRealtimeServer } from '@/lib/realtime';
+import { startMailWorker, stopMailQueue } from '@/lib/mail/outbox';
+import { getSequelize } from '@/db';
+
+const SESSION_COOKIES = ['__Secure-next-auth.session-token', 'next-auth.session-token'];
+
+async function main() {
+  const e = env();
+  const dev = e.NODE_ENV !== 'production';
+  const hostname = '127.0.0.1';
+  const app = next({ dev, hostname, port: e.PORT });
+  const handle = app.getRequestHandler();
+  await app.prepare();
+
+  const server = createServer((req, res) => {
+    handle(req, res).catch((err) => {
+      console.error(err);
+      res.statusCode = 500;
+      res.end('Internal error');
+    });
+  });
+
+  // socket.io on its own path; a socket must carry a valid session cookie to join its co-op's room.
+  const io = new Server(server, { path: '/realtime', serveClient: false });
+  io.use(async (socket, nextFn) => {
+    try {
+      const cookies = parseCookie(socket.request.headers.cookie ?? '');
+      const raw = SESSION_COOKIES.map((n) => cookies[n]).find(Boolean);
+      const token = raw ? await decode({ token: raw, secret: e.NEXTAUTH_SECRET }) : null;
+      if (!token?.cooperativeId) return nextFn(new Error('Please sign in first.'));
+      socket.data.user = { id: token.uid, role: token.role, cooperativeId: token.cooperativeId };
+      nextFn();
+    } catch {
+      nextFn(new Error('Please sign in first.'));
+    }
+  });
+  io.on('connection', (socket) => {
+    socket.join(coopRoom(socket.data.user.cooperativeId));
+  });
+  setRealtimeServer(io);
+
+  await startMailWorker();
+
+  server.listen(e.PORT, hostname, () => {
+    console.log(`Brixhouse is serving on http://${hostname}:${e.PORT} (${dev ? 'development' : 'production'})`);
+  });
+
+  const shutdown = async () => {
+    io.close();
+    server.close();
+    await stopMailQueue().catch(() => undefined);
+    await getSequelize().close().catch(() => undefined);
+    process.exit(0);
+  };
+  process.on('SIGTERM', shutdown);
+  process.on('SIGINT', shutdown);
+}
+
+main().catch((err) => {
+  console.error(err);
+  process.exit(1);
+});
