@@ -41,3 +41,10 @@ export async function getCooperative({ cooperativeId }: { cooperativeId: string 
   if (!coop) throw new Error('The signed-in cooperative no longer exists.');
   return coop;
 }
+
+/** Household ids and names only: what a sugarmaker needs to book for a household. */
+export async function listHouseholdNames({ cooperativeId }: { cooperativeId: string }) {
+  const { Household } = db();
+  const rows = await Household.findAll({ where: { cooperativeId }, attributes: ['id', 'name'], order: [['name', 'ASC']] });
+  return rows.map((h) => ({ id: h.id, name: h.name }));
+}

@@ -39,6 +39,9 @@ export const SUCROSE_DENSITY_20C: readonly number[] = Object.freeze([
   1.4117, 1.4183, 1.425, 1.4316, 1.4383, 1.4451,
 ]);
 
+// Lookups read a typed copy (the hot path of every drop-off); the exported table stays frozen.
+const TABLE = Float64Array.from(SUCROSE_DENSITY_20C);
+
 // ICUMSA coefficients (kg/m³) of w, w², … w⁶ at 20 °C, w = mass fraction of sucrose.
 const ICUMSA_20C = [385.1761, 135.3705, 40.9299, -3.9643, 13.4853, -17.289] as const;
 // Water at 20 °C, Kell (1975), J. Chem. Eng. Data 20:97, the water term of the formula.
@@ -69,9 +72,9 @@ export function icumsaSucroseDensity20C(brix: number): number {
 export function densityFromBrix(brix: number): number {
   numberInRange('brix', brix, 0, MAX_BRIX);
   const lower = Math.floor(brix);
-  if (lower === MAX_BRIX) return SUCROSE_DENSITY_20C[MAX_BRIX];
-  const lo = SUCROSE_DENSITY_20C[lower];
-  const hi = SUCROSE_DENSITY_20C[lower + 1];
+  if (lower === MAX_BRIX) return TABLE[MAX_BRIX];
+  const lo = TABLE[lower];
+  const hi = TABLE[lower + 1];
   return lo + (hi - lo) * (brix - lower);
 }
 

@@ -1,0 +1,14 @@
+import { z } from 'zod';
+
+const num = (name: string, min: number, max: number, unit: string) =>
+  z.coerce
+    .number({ message: `${name} must be a number.` })
+    .refine(Number.isFinite, `${name} must be a number.`)
+    .min(min, `${name} must be at least ${min} ${unit}.`)
+    .max(max, `${name} must be at most ${max} ${unit}.`);
+
+export const EstimateQuery = z.object({
+  volumeL: num('volumeL', 0, 1_000_000, 'L'),
+  brix: num('brix', 0.1, 85, '°Bx'),
+  syrupBrix: num('syrupBrix', 60, 70, '°Bx').optional(),
+});

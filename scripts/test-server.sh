@@ -1,0 +1,11 @@
+#!/usr/bin/env bash
+# The production server on the tests' own ports and database (used by Playwright when run alone).
+set -euo pipefail
+source "$(dirname "$0")/lib.sh"
+source "$ROOT/scripts/test-env.sh"
+cd "$ROOT"
+bash scripts/db.sh start > /dev/null
+bash scripts/mail.sh start maildev-test "$SMTP_PORT" "$MAIL_WEB_PORT"
+npm run --silent db:migrate -- --quiet > /dev/null
+[ -d "$NEXT_DIST_DIR" ] || npx next build > "$DATA_DIR/build-test.log" 2>&1
+exec node --import tsx server.ts

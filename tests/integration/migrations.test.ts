@@ -1,0 +1,49 @@
+import { afterAll, describe, expect, it } from 'vitest';
+import { QueryTypes, Sequelize } from 'sequelize';
+import pg from 'pg';
+import { createMigrator } from '@/db/migrator';
+import { migrations } from '@/db/migrations';
+import { TEST_DATABASE_URL } from '../test-env';
+
+const SCRATCH = 'brixhouse_migration_check';
+const scratchUrl = TEST_DATABASE_URL.replace(/\/[^/]+$/, `/${SCRATCH}`);
+const admin = new Sequelize(TEST_DATABASE_URL, { dialect: 'postgres', dialectModule: pg, logging: false });
+let scratch: Sequelize | undefined;
+
+async function tables(s: Sequelize) {
+  const r = await s.query<{ table_name: string }>(
+    "SELECT table_name FROM information_schema.tables WHERE table_schema = 'public' AND table_name <> 'schema_migrations' ORDER BY 1",
+    { type: QueryTypes.SELECT },
+  );
+  return r.map((t) => t.table_name);
+}
+
+afterAll(async () => {
+  await scratch?.close();
+  await admin.query(`DROP DATABASE IF EXISTS ${SCRATCH} WITH (FORCE)`);
+  await admin.close();
+});
+
+describe('migrations', () => {
+  it('go up, down to zero and up again on an empty database', async () => {
+    await admin.query(`DROP DATABASE IF EXISTS ${SCRATCH} WITH (FORCE)`);
+    await admin.query(`CREATE DATABASE ${SCRATCH}`);
+    scratch = new Sequelize(scratchUrl, { dialect: 'postgres', dialectModule: pg, logging: false });
+    const migrator = createMigrator(scratch, { quiet: true });
+
+    expect(await tables(scratch)).toEqual([]);
+    const up = await migrator.up();
+    expect(up.map((m) => m.name)).toEqual(migrations.map((m) => m.name));
+    expect(await tables(scratch)).toEqual(['boil_slots', 'cooperatives', 'evaporators', 'households', 'seasons', 'users']);
+
+    const down = await migrator.down({ to: 0 });
+    expect(down).toHaveLength(migrations.length);
+    expect(await tables(scratch)).toEqual([]);
+    const types = await scratch.query("SELECT typname FROM pg_type WHERE typname IN ('user_role', 'boil_slot_status')", { type: QueryTypes.SELECT });
+    expect(types).toEqual([]);
+
+    await migrator.up();
+    expect(await tables(scratch)).toHaveLength(6);
+    expect(await migrator.pending()).toEqual([]);
+  });
+});
