@@ -6,7 +6,7 @@ export interface CaughtMail {
   subject: string;
   text: string;
   to: { address: string; name?: string }[];
-  attachments?: { fileName?: string; generatedFileName?: string; contentType: string }[];
+  attachments?: { filename?: string; generatedFileName: string; contentType: string }[];
 }
 
 export async function listMail(): Promise<CaughtMail[]> {
@@ -21,9 +21,9 @@ export async function clearMail() {
 
 /** The text of one attachment of a caught e-mail. */
 export async function attachmentText(mail: CaughtMail, fileName: string): Promise<string> {
-  const a = mail.attachments?.find((x) => x.fileName === fileName || x.generatedFileName === fileName);
-  if (!a) throw new Error(`no attachment ${fileName}`);
-  const res = await fetch(`${MAILDEV_URL}/email/${mail.id}/attachment/${encodeURIComponent(a.generatedFileName ?? a.fileName!)}`);
+  const a = mail.attachments?.find((x) => x.filename === fileName);
+  if (!a) throw new Error(`no attachment ${fileName} (has: ${mail.attachments?.map((x) => x.filename).join(', ') || 'none'})`);
+  const res = await fetch(`${MAILDEV_URL}/api/email/${mail.id}/attachment/${encodeURIComponent(a.generatedFileName)}`);
   if (!res.ok) throw new Error(`maildev answered ${res.status} for the attachment`);
   return res.text();
 }

@@ -11,8 +11,12 @@ const expectedSapL = z
   .nullable();
 const note = z.string().trim().max(500, 'Keep the note under 500 characters.').nullable();
 
-const endsAfterStart = (s: { startsAt?: string; endsAt?: string }) =>
-  !s.startsAt || !s.endsAt || Date.parse(s.endsAt) > Date.parse(s.startsAt);
+// Only compared when both are valid instants; a bad one already has its own message.
+const endsAfterStart = (s: { startsAt?: string; endsAt?: string }) => {
+  const start = Date.parse(s.startsAt ?? '');
+  const end = Date.parse(s.endsAt ?? '');
+  return Number.isNaN(start) || Number.isNaN(end) || end > start;
+};
 const endMessage = { path: ['endsAt'], message: 'The slot must end after it starts.' };
 
 export const SlotInput = z

@@ -28,7 +28,7 @@ test.describe('signing in by role', () => {
     await expect(navLinks(page)).toHaveText(['Today', 'Boil calendar', 'Sugarhouse', 'Households', 'Settings']);
     await page.getByRole('link', { name: 'Households' }).click();
     await expect(page.getByRole('heading', { name: 'Households', level: 1 })).toBeVisible();
-    await expect(page.getByRole('cell', { name: 'Tremblay-Haddad' })).toBeVisible();
+    await expect(page.getByRole('cell', { name: 'Tremblay-Haddad', exact: true })).toBeVisible();
   });
 
   test('a wrong password gets a clear message and no session', async ({ page, signInPage }) => {

@@ -11,11 +11,12 @@ const admin = new Sequelize(TEST_DATABASE_URL, { dialect: 'postgres', dialectMod
 let scratch: Sequelize | undefined;
 
 async function tables(s: Sequelize) {
-  const r = await s.query<{ table_name: string }>(
-    "SELECT table_name FROM information_schema.tables WHERE table_schema = 'public' AND table_name <> 'schema_migrations' ORDER BY 1",
+  // pg_tables rather than information_schema: Sequelize rewrites the shape of a "show tables" query.
+  const r = await s.query<{ name: string }>(
+    "SELECT tablename AS name FROM pg_tables WHERE schemaname = 'public' AND tablename <> 'schema_migrations' ORDER BY 1",
     { type: QueryTypes.SELECT },
   );
-  return r.map((t) => t.table_name);
+  return r.map((t) => t.name);
 }
 
 afterAll(async () => {
