@@ -28,9 +28,9 @@ const features = [
 
 // An illustration with round figures; the book uses each drop-off's own reading.
 const example = [
-  { household: 'Alder Row', litres: 400, brix: '3.0', sugarKg: '12.1', sugarShare: '40%', bucketShare: '29%' },
-  { household: 'Fernbank', litres: 400, brix: '1.5', sugarKg: '6.0', sugarShare: '20%', bucketShare: '29%' },
-  { household: 'Quarry Lane', litres: 600, brix: '2.0', sugarKg: '12.1', sugarShare: '40%', bucketShare: '43%' },
+  { household: 'Okafor', litres: 400, brix: '3.0', sugarKg: '12.1', sugarShare: '40%', bucketShare: '29%' },
+  { household: 'Szabo', litres: 400, brix: '1.5', sugarKg: '6.0', sugarShare: '20%', bucketShare: '29%' },
+  { household: 'Nakamura', litres: 600, brix: '2.0', sugarKg: '12.1', sugarShare: '40%', bucketShare: '43%' },
 ] as const;
 
 export default function HomePage() {
@@ -78,7 +78,7 @@ export default function HomePage() {
           </div>
           <p className="text-base text-slate-muted">
             The demo is set up for the <strong className="font-semibold text-slate">Larkspur Hollow Sugar Cooperative</strong>,
-            an invented co-op of three households.
+            an invented co-op of seven households.
           </p>
         </section>
 
@@ -153,8 +153,8 @@ export default function HomePage() {
 
           <p className="-mt-3 text-sm text-slate-muted">Figures rounded; losses in the pan left out.</p>
           <p className="max-w-3xl text-lg leading-relaxed">
-            Alder Row and Fernbank each poured 400 L, but Alder Row&rsquo;s sap was twice as sweet. Of the roughly
-            35 L of syrup the season made, Alder Row takes about 14 L and Fernbank about 7 L, and each pays the same
+            The Okafor and Szabo households each poured 400 L, but the Okafors&rsquo; sap was twice as sweet. Of the roughly
+            34 L of syrup these three lots make, the Okafors take about 14 L and the Szabos about 7 L, and each pays the same
             share of the fuel bill as of the syrup. The e-mailed statement shows every household the readings its share came from.
           </p>
           <div className="flex flex-col gap-2">

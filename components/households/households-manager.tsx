@@ -45,7 +45,7 @@ export function HouseholdsManager() {
 
   return (
     <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
-      <Card>
+      <Card className="min-w-0">
         <CardHeader>
           <CardTitle>Households and their people</CardTitle>
         </CardHeader>
@@ -58,7 +58,6 @@ export function HouseholdsManager() {
                 <TR>
                   <TH>Household</TH>
                   <TH>Person</TH>
-                  <TH>E-mail</TH>
                   <TH>Role</TH>
                 </TR>
               </THead>
@@ -67,7 +66,7 @@ export function HouseholdsManager() {
                   h.people.length === 0 ? (
                     <TR key={h.id}>
                       <TD className="font-semibold">{h.name}</TD>
-                      <TD colSpan={3} className="text-slate-muted">
+                      <TD colSpan={2} className="text-slate-muted">
                         No one yet
                       </TD>
                     </TR>
@@ -85,7 +84,7 @@ export function HouseholdsManager() {
           )}
         </CardBody>
       </Card>
-      <div className="flex flex-col gap-6">
+      <div className="flex min-w-0 flex-col gap-6">
         <AddHouseholdForm onAdded={refresh} />
         <AddPersonForm households={households.data ?? []} onAdded={refresh} />
       </div>
@@ -126,11 +125,13 @@ function PersonRow({ person, household, households, onChanged }: PersonRowProps)
     <TR>
       <TD className="font-semibold">{household}</TD>
       <TD>
-        {person.name} {person.invited ? <Badge variant="neutral">Invited</Badge> : null}
+        <span className="block">
+          {person.name} {person.invited ? <Badge variant="neutral">Invited</Badge> : null}
+        </span>
+        <span className="block text-sm text-slate-muted">{person.email}</span>
       </TD>
-      <TD className="break-all">{person.email}</TD>
       <TD>
-        <div className="flex min-w-56 flex-col gap-2">
+        <div className="flex min-w-40 flex-col gap-2">
           <label htmlFor={selectId} className="sr-only">
             Role of {person.name}
           </label>

@@ -6,6 +6,8 @@ import { listUpcomingSlots } from '@/lib/slots';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { buttonVariants } from '@/components/ui/button';
 import { formatSlotRange } from '@/lib/time';
+import { formatVolume } from '@/lib/sugar';
+import { Alert } from '@/components/ui/alert';
 
 export const metadata: Metadata = { title: 'Today' };
 
@@ -57,13 +59,17 @@ export default async function HomePage() {
             <ul className="flex flex-col gap-1">
               {evaporators.map((e) => (
                 <li key={e.id}>
-                  {e.name}: {e.evaporationLph} L of water an hour, {e.fuelKind}-fired
+                  {e.name}: {formatVolume(e.evaporationLph, coop.unitSystem)} of water an hour, {e.fuelKind}-fired
                 </li>
               ))}
             </ul>
           </CardBody>
         </Card>
       </div>
+      <Alert tone="warning" title="Before you crew a boil">
+        Boiling sap and syrup burn; never leave a firing evaporator unattended; keep the sugarhouse ventilated against carbon
+        monoxide. Follow local fire codes and the co-op’s sugarmakers.
+      </Alert>
     </div>
   );
 }
