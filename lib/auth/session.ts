@@ -1,18 +1,12 @@
 import 'server-only';
-import { getServerSession } from 'next-auth';
+import { getServerSession, type Session } from 'next-auth';
 import { redirect } from 'next/navigation';
 import { authOptions } from './options';
 import type { Role } from '@/lib/roles';
 import { ApiError } from '@/lib/api/errors';
 
-export interface SessionUser {
-  id: string;
-  name: string;
-  email: string;
-  role: Role;
-  cooperativeId: string;
-  householdId: string | null;
-}
+/** The signed-in person as the session carries them (see types/next-auth.d.ts). */
+export type SessionUser = Session['user'];
 
 type OnFail = 'throw' | 'redirect';
 
