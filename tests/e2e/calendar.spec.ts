@@ -1,0 +1,115 @@
+import { DateTime } from 'luxon';
+import type { Page } from '@playwright/test';
+import { SignInPage, expect, test } from './fixtures';
+import { attachmentText, clearMail, waitForMail } from '../mailbox';
+
+// The demo co-op's zone; demo slots sit at 07:00–12:00 or 13:00–19:00, so the evening is free.
+const ZONE = 'America/New_York';
+const DAYS_AHEAD = 4;
+
+const bookingDay = () => DateTime.now().setZone(ZONE).startOf('day').plus({ days: DAYS_AHEAD });
+
+/** Opens the Boil calendar in day view on the booking day, with live updates connected. */
+async function openBookingDay(page: Page, day: DateTime) {
+  await page.goto('/calendar');
+  await expect(page.getByTestId('live-status')).toHaveAttribute('data-status', 'live');
+  await page.getByRole('button', { name: 'Day', exact: true }).click();
+  await page.getByRole('button', { name: 'Today', exact: true }).click();
+  for (let i = 0; i < DAYS_AHEAD; i++) await page.getByRole('button', { name: 'Next day' }).click();
+  await expect(page.locator(`.fc-timegrid-col[data-date="${day.toISODate()}"]`)).toBeVisible();
+  await expect(page.getByRole('heading', { name: day.toFormat('cccc d LLLL yyyy') })).toBeVisible();
+}
+
+/** Drags out a selection on the time grid, from the start of one half-hour row to the end of another. */
+async function dragTime(page: Page, from: string, lastRow: string) {
+  const first = page.locator(`td.fc-timegrid-slot-lane[data-time="${from}:00"]`);
+  const last = page.locator(`td.fc-timegrid-slot-lane[data-time="${lastRow}:00"]`);
+  await first.scrollIntoViewIfNeeded();
+  await last.scrollIntoViewIfNeeded();
+  const a = (await first.boundingBox())!;
+  const b = (await last.boundingBox())!;
+  await page.mouse.move(a.x + a.width / 2, a.y + a.height / 2);
+  await page.mouse.down();
+  await page.mouse.move(a.x + a.width / 2, (a.y + b.y) / 2 + a.height / 2, { steps: 5 });
+  await page.mouse.move(b.x + b.width / 2, b.y + b.height / 2, { steps: 5 });
+  await page.mouse.up();
+}
+
+const slotEvent = (page: Page, household: string) =>
+  page.locator('.fc-event', { hasText: `${household} household` }).filter({ hasText: '19:30 – 21:30' });
+
+test('members book a boil slot on the calendar, meet a clash, and free the time by cancelling', async ({ page, signInAs, browser }) => {
+  await clearMail();
+  const day = bookingDay();
+  const startUtc = day.set({ hour: 19, minute: 30 }).toUTC().toFormat("yyyyMMdd'T'HHmmss'Z'");
+
+  // The first member books by dragging out 19:30–21:30 on the time grid.
+  await signInAs('nakamura@larkspur.example');
+  await openBookingDay(page, day);
+  await dragTime(page, '19:30', '21:00');
+
+  const booking = page.getByRole('dialog', { name: 'Book a boil slot' });
+  await expect(booking).toBeVisible();
+  await expect(booking.getByLabel('Start date')).toHaveValue(day.toISODate()!);
+  await expect(booking.getByLabel('Start time')).toHaveValue('19:30');
+  await expect(booking.getByLabel('End time')).toHaveValue('21:30');
+  await expect(booking.getByText('Nakamura (your household)')).toBeVisible();
+  await booking.getByLabel('Crew').fill('Hiroko Nakamura, Ren Nakamura');
+  await booking.getByLabel('Expected sap (gal)').fill('150');
+  await booking.getByLabel('Note (optional)').fill('Evening boil after the day’s gathering.');
+  await booking.getByRole('button', { name: 'Book this slot' }).click();
+  await expect(booking).toBeHidden();
+
+  const ownEvent = page.getByRole('button', { name: /19:30 – 21:30\s*Nakamura household\s*Your household/ });
+  await expect(ownEvent).toBeVisible();
+  await expect(slotEvent(page, 'Nakamura')).not.toContainText('Booking…');
+
+  // The confirmation e-mail carries the slot as an iCalendar file, in UTC.
+  const mail = await waitForMail({ to: 'nakamura@larkspur.example', subject: `Boil slot booked: ${day.toFormat('ccc d LLL')}, 19:30` });
+  const ics = await attachmentText(mail, 'boil-slot.ics');
+  expect(ics).toContain('BEGIN:VCALENDAR');
+  expect(ics).toContain(`DTSTART:${startUtc}`);
+
+  // A second member, of another household, types the same time and meets the server's refusal.
+  const otherContext = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+  const other = await otherContext.newPage();
+  await new SignInPage(other).signIn('lindqvist@larkspur.example');
+  await expect(other.getByTestId('signed-in-as')).toBeVisible();
+  await openBookingDay(other, day);
+  await expect(slotEvent(other, 'Nakamura')).toBeVisible();
+  await expect(slotEvent(other, 'Nakamura')).not.toContainText('Your household');
+
+  await other.getByRole('button', { name: 'Book a slot' }).click();
+  const otherBooking = other.getByRole('dialog', { name: 'Book a boil slot' });
+  await expect(otherBooking).toBeVisible();
+  await otherBooking.getByLabel('Start date').fill(day.toISODate()!);
+  await otherBooking.getByLabel('Start time').fill('19:30');
+  await otherBooking.getByLabel('End date').fill(day.toISODate()!);
+  await otherBooking.getByLabel('End time').fill('21:30');
+  await otherBooking.getByRole('button', { name: 'Book this slot' }).click();
+
+  await expect(otherBooking.getByRole('alert').filter({ hasText: 'That time overlaps the Nakamura household’s slot' })).toBeVisible();
+  await expect(otherBooking.getByLabel('Start time')).toHaveAttribute('aria-invalid', 'true');
+  await expect(other.locator('[data-sonner-toast]', { hasText: 'overlaps the Nakamura household' })).toBeVisible();
+  // The optimistic copy was rolled back.
+  await expect(slotEvent(other, 'Lindqvist')).toHaveCount(0);
+
+  // The first member cancels; the slot leaves both calendars (the second one live).
+  await ownEvent.click();
+  const details = page.getByRole('dialog', { name: 'Nakamura household' });
+  await expect(details).toContainText('Hiroko Nakamura, Ren Nakamura');
+  await details.getByRole('button', { name: 'Cancel this slot' }).click();
+  await details.getByRole('button', { name: 'Yes, cancel the slot' }).click();
+  await expect(details).toBeHidden();
+  await expect(slotEvent(page, 'Nakamura')).toHaveCount(0);
+  await expect(slotEvent(other, 'Nakamura')).toHaveCount(0);
+  await waitForMail({ to: 'nakamura@larkspur.example', subject: 'Boil slot cancelled' });
+
+  // The freed time can now be booked by the second member.
+  await otherBooking.getByRole('button', { name: 'Book this slot' }).click();
+  await expect(otherBooking).toBeHidden();
+  await expect(other.getByRole('button', { name: /19:30 – 21:30\s*Lindqvist household\s*Your household/ })).toBeVisible();
+  await expect(slotEvent(page, 'Lindqvist')).toBeVisible();
+
+  await otherContext.close();
+});
