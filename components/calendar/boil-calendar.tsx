@@ -6,9 +6,9 @@ import { DateTime } from 'luxon';
 import FullCalendar from '@fullcalendar/react';
 import dayGridPlugin from '@fullcalendar/daygrid';
 import timeGridPlugin from '@fullcalendar/timegrid';
-import interactionPlugin, { type DateClickArg } from '@fullcalendar/interaction';
+import interactionPlugin, { type DateClickArg, type EventResizeDoneArg } from '@fullcalendar/interaction';
 import luxonPlugin from '@fullcalendar/luxon3';
-import type { DateSelectArg, DateSpanApi, DatesSetArg, EventClickArg, EventContentArg, EventInput, EventMountArg } from '@fullcalendar/core';
+import type { DateSelectArg, DateSpanApi, DatesSetArg, EventClickArg, EventContentArg, EventDropArg, EventInput, EventMountArg } from '@fullcalendar/core';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { toast } from '@/components/ui/toaster';
@@ -79,6 +79,9 @@ export function BoilCalendar({ setup }: { setup: CalendarSetup }) {
         end: s.endsAt,
         title: `${s.householdName} household`,
         extendedProps: { slot: s },
+        // Own booked slots move by dragging and change length by their lower edge.
+        startEditable: s.editable && s.status === 'booked',
+        durationEditable: s.editable && s.status === 'booked',
         classNames: [
           s.id.startsWith('pending-')
             ? styles.pending
@@ -255,6 +258,34 @@ export function BoilCalendar({ setup }: { setup: CalendarSetup }) {
     toast.success('Saved the crew and note.');
   }
 
+  /** A slot dragged or stretched to a new time: PATCH it, or put it back with the server's reason. */
+  async function move(arg: EventDropArg | EventResizeDoneArg) {
+    const slot = arg.event.extendedProps.slot as SlotDto;
+    const startsAt = DateTime.fromJSDate(arg.event.start!, { zone }).toISO()!;
+    const endsAt = DateTime.fromJSDate(arg.event.end!, { zone }).toISO()!;
+    try {
+      await slots.mutate(
+        async (current) => {
+          const saved = await apiSend<SlotDto>('PATCH', `/api/slots/${slot.id}`, { startsAt, endsAt });
+          return (current ?? []).map((s) => (s.id === slot.id ? saved : s));
+        },
+        {
+          optimisticData: (current) => (current ?? []).map((s) => (s.id === slot.id ? { ...s, startsAt, endsAt } : s)),
+          rollbackOnError: true,
+          populateCache: true,
+          revalidate: false,
+        },
+      );
+      toast.success(`Moved the ${slot.householdName} household’s slot to ${formatSlotRange(startsAt, endsAt, zone)}.`, {
+        description: 'The household gets an e-mail with the new time.',
+      });
+      void mutateAny(PLANNING_KEY);
+    } catch (err) {
+      arg.revert();
+      toast.error(err instanceof ApiClientError ? err.message : 'The slot could not be moved.');
+    }
+  }
+
   // The dialog shows the latest copy of the slot, but keeps its last copy while it is being removed.
   const shownSlot = selected ? (slots.data?.find((s) => s.id === selected.id) ?? selected) : null;
 
@@ -391,6 +422,10 @@ export function BoilCalendar({ setup }: { setup: CalendarSetup }) {
               eventContent={renderEvent}
               eventDidMount={onEventDidMount}
               eventClick={onEventClick}
+              eventOverlap={false}
+              eventLongPressDelay={400}
+              eventDrop={(arg) => void move(arg)}
+              eventResize={(arg) => void move(arg)}
               datesSet={onDatesSet}
             />
           )}

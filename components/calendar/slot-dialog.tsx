@@ -138,6 +138,7 @@ function SlotDetails({ setup, slot, onCancel, onChange }: Omit<SlotDialogProps, 
               Members can cancel up to {setup.cancelNoticeHours} hours before a slot starts; closer to the start, ask a sugarmaker.
             </p>
           ) : null}
+          <p className="text-sm text-slate-muted">To move it, drag it to a free time in the week or day view (a long press on a phone); drag its lower edge to change its length.</p>
           <div className="flex flex-wrap gap-2">
             <Button variant="secondary" onClick={() => setMode('edit')}>
               Edit crew and note

@@ -15,7 +15,8 @@ async function openBookingDay(page: Page, day: DateTime) {
   await expect(page.getByTestId('live-status')).toHaveAttribute('data-status', 'live');
   await page.getByRole('button', { name: 'Day', exact: true }).click();
   await page.getByRole('button', { name: 'Today', exact: true }).click();
-  for (let i = 0; i < DAYS_AHEAD; i++) await page.getByRole('button', { name: 'Next day' }).click();
+  const ahead = Math.round(day.diff(DateTime.now().setZone(ZONE).startOf('day'), 'days').days);
+  for (let i = 0; i < ahead; i++) await page.getByRole('button', { name: 'Next day' }).click();
   await expect(page.locator(`.fc-timegrid-col[data-date="${day.toISODate()}"]`)).toBeVisible();
   await expect(page.getByRole('heading', { name: day.toFormat('cccc d LLLL yyyy') })).toBeVisible();
 }
@@ -112,4 +113,39 @@ test('members book a boil slot on the calendar, meet a clash, and free the time 
   await expect(slotEvent(page, 'Lindqvist')).toBeVisible();
 
   await otherContext.close();
+});
+
+test('a member moves its own slot by dragging it, and the household is told', async ({ page, signInAs }) => {
+  await clearMail();
+  // The day after the other test's booking day, so the two never meet.
+  const day = DateTime.now().setZone(ZONE).startOf('day').plus({ days: DAYS_AHEAD + 1 });
+  await signInAs('ferreira@larkspur.example');
+  const evaporatorId = (await (await page.request.get('/api/evaporators')).json())[0].id;
+  const created = await page.request.post('/api/slots', {
+    data: { evaporatorId, startsAt: day.set({ hour: 19, minute: 0 }).toISO(), endsAt: day.set({ hour: 20, minute: 0 }).toISO() },
+  });
+  expect(created.status()).toBe(201);
+  const { id } = (await created.json()) as { id: string };
+
+  await openBookingDay(page, day);
+  const event = page.getByRole('button', { name: /19:00 – 20:00\s*Ferreira household/ });
+  await expect(event).toBeVisible();
+  await page.locator('td.fc-timegrid-slot-lane[data-time="21:00:00"]').scrollIntoViewIfNeeded();
+  await event.scrollIntoViewIfNeeded();
+  const from = (await event.boundingBox())!;
+  const row = (await page.locator('td.fc-timegrid-slot-lane[data-time="20:00:00"]').boundingBox())!;
+  // Two half-hour rows down: 19:00–20:00 becomes 20:00–21:00.
+  await page.mouse.move(from.x + from.width / 2, from.y + 8);
+  await page.mouse.down();
+  await page.mouse.move(from.x + from.width / 2, from.y + 8 + row.height, { steps: 5 });
+  await page.mouse.move(from.x + from.width / 2, from.y + 8 + 2 * row.height, { steps: 5 });
+  await page.mouse.up();
+
+  await expect(page.getByRole('button', { name: /20:00 – 21:00\s*Ferreira household/ })).toBeVisible();
+  await expect(page.locator('[data-sonner-toast]', { hasText: 'Moved the Ferreira household’s slot' })).toBeVisible();
+  await waitForMail({ to: 'ferreira@larkspur.example', subject: `Boil slot moved: ${day.toFormat('ccc d LLL')}, 20:00 – 21:00` });
+  const listed = await (await page.request.get(`/api/slots?from=${day.toISODate()}&to=${day.plus({ days: 1 }).toISODate()}`)).json();
+  const moved = listed.find((s: { id: string }) => s.id === id);
+  expect(moved.startsAt).toBe(day.set({ hour: 20 }).toISO());
+  expect(moved.endsAt).toBe(day.set({ hour: 21 }).toISO());
 });

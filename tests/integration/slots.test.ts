@@ -3,6 +3,7 @@ import { DateTime } from 'luxon';
 import { Client, signedIn } from './http';
 import { closeTestDb, rows, testDb } from './db';
 import { attachmentText, clearMail, waitForMail } from '../mailbox';
+import { formatSlotRange } from '@/lib/time';
 
 const ZONE = 'America/New_York';
 let sugarmaker: Client;
@@ -102,7 +103,9 @@ describe('booking a slot', () => {
     await clearMail();
     const r = await okafor.post('/api/slots', { evaporatorId, startsAt: at(20, 9), endsAt: at(20, 12), crew: ['Adaeze Okafor'] });
     expect(r.status).toBe(201);
-    const mail = await waitForMail({ to: 'okafor@larkspur.example', subject: 'Boil slot booked' });
+    // Mail from earlier tests may still be on its way: wait for this slot's own subject.
+    const when = formatSlotRange(at(20, 9), at(20, 12), ZONE);
+    const mail = await waitForMail({ to: 'okafor@larkspur.example', subject: `Boil slot booked: ${when}` });
     const ics = await attachmentText(mail, 'boil-slot.ics');
     expect(ics).toContain('BEGIN:VCALENDAR');
     const utc = DateTime.fromISO(at(20, 9)).toUTC().toFormat("yyyyMMdd'T'HHmmss'Z'");
@@ -111,9 +114,10 @@ describe('booking a slot', () => {
     const moved = await okafor.patch(`/api/slots/${r.body.id}`, { startsAt: at(20, 13), endsAt: at(20, 15), note: 'Bring dry wood' });
     expect(moved.status).toBe(200);
     expect(moved.body.note).toBe('Bring dry wood');
-    await waitForMail({ to: 'okafor@larkspur.example', subject: 'Boil slot moved' });
+    const movedTo = formatSlotRange(at(20, 13), at(20, 15), ZONE);
+    await waitForMail({ to: 'okafor@larkspur.example', subject: `Boil slot moved: ${movedTo}` });
     expect((await okafor.delete(`/api/slots/${r.body.id}`)).status).toBe(200);
-    const cancelled = await waitForMail({ to: 'okafor@larkspur.example', subject: 'Boil slot cancelled' });
+    const cancelled = await waitForMail({ to: 'okafor@larkspur.example', subject: `Boil slot cancelled: ${movedTo}` });
     expect(await attachmentText(cancelled, 'boil-slot.ics')).toContain('STATUS:CANCELLED');
   });
 
