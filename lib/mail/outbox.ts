@@ -40,6 +40,8 @@ export async function enqueueMail(mail: OutgoingMail, transaction?: Transaction)
   if (mail.to.length === 0) return;
   const boss = await mailQueue();
   const client = (transaction as unknown as { connection?: PgClientLike } | undefined)?.connection;
+  // Queuing outside the caller's transaction would send mail for a write that may yet roll back.
+  if (transaction && !client) throw new Error('The transaction has no open connection to queue mail on.');
   await boss.send(MAIL_QUEUE, mail as unknown as object, {
     retryLimit: 8,
     retryDelay: 5,
