@@ -35,6 +35,11 @@ export function SignInForm() {
 
   return (
     <form onSubmit={onSubmit} className="flex flex-col gap-4" noValidate>
+      {params.get('welcome') && !error ? (
+        <Alert tone="info" title="Password saved">
+          Sign in with your e-mail address and the password you just chose.
+        </Alert>
+      ) : null}
       {error ? (
         <Alert tone="danger" title="Not signed in">
           {error}

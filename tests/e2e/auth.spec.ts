@@ -74,6 +74,7 @@ test('a coordinator adds a person and the welcome e-mail arrives', async ({ page
   await page.getByLabel('The same password again').fill('tapping-the-sugarbush');
   await page.getByRole('button', { name: 'Save password' }).click();
   await expect(page).toHaveURL(/\/sign-in/);
+  await expect(page.getByText('Password saved')).toBeVisible();
   await page.getByLabel('E-mail').fill('tova@larkspur.example');
   await page.getByLabel('Password').fill('tapping-the-sugarbush');
   await page.getByRole('button', { name: 'Sign in' }).click();

@@ -98,7 +98,18 @@ describe('POST /api/households and /api/people', () => {
     expect(r.status).toBe(201);
     expect(r.body).toMatchObject({ email: 'bence@larkspur.example', role: 'member', householdId: hh.id, invited: true });
     const mail = await waitForMail({ to: 'bence@larkspur.example', subject: 'Welcome to Larkspur Hollow' });
-    expect(mail.text).toMatch(/\/welcome\/[A-Za-z0-9_-]{20,}/);
+    const token = mail.text.match(/\/welcome\/([A-Za-z0-9_-]{20,})/)![1];
+
+    // The one-time link sets a password once; the person can then sign in.
+    const anon = new Client();
+    const short = await anon.post('/api/invitations/accept', { token, password: 'short' });
+    expect(short.status).toBe(422);
+    expect(short.body.error.fields.password).toMatch(/10 characters/);
+    expect((await anon.post('/api/invitations/accept', { token, password: 'boiling-since-dawn' })).status).toBe(200);
+    const reused = await anon.post('/api/invitations/accept', { token, password: 'another-password' });
+    expect(reused.status).toBe(404);
+    expect(reused.body.error.message).toMatch(/expired or was already used/);
+    expect(await new Client().signIn('bence@larkspur.example', 'boiling-since-dawn')).toBe(true);
   });
 
   it('answers 409 with a clear message for a duplicate e-mail', async () => {
