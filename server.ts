@@ -1,6 +1,8 @@
 import { createServer } from 'node:http';
 import next from 'next';
 import { Server } from 'socket.io';
+import { createAdapter } from '@socket.io/postgres-adapter';
+import pg from 'pg';
 import { parse as parseCookie } from 'cookie';
 import { decode } from 'next-auth/jwt';
 import { env } from '@/lib/env';
@@ -28,6 +30,10 @@ async function main() {
 
   // socket.io on its own path; a socket must carry a valid session cookie to join its co-op's room.
   const io = new Server(server, { path: '/realtime', serveClient: false });
+  // Events reach the sockets of every server process that shares the database.
+  const adapterPool = new pg.Pool({ connectionString: e.DATABASE_URL, max: 3 });
+  adapterPool.on('error', (err) => console.error('realtime adapter:', err.message));
+  io.adapter(createAdapter(adapterPool, { tableName: 'socket_io_attachments' }));
   io.use(async (socket, nextFn) => {
     try {
       const cookies = parseCookie(socket.request.headers.cookie ?? '');
@@ -54,6 +60,7 @@ async function main() {
   const shutdown = async () => {
     io.close();
     server.close();
+    await adapterPool.end().catch(() => undefined);
     await stopMailQueue().catch(() => undefined);
     await getSequelize().close().catch(() => undefined);
     process.exit(0);

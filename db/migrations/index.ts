@@ -2,6 +2,7 @@ import type { MigrationFn } from 'umzug';
 import type { QueryInterface } from 'sequelize';
 import * as base from './20261201-0001-base';
 import * as boilSlots from './20261201-0002-boil-slots';
+import * as realtime from './20261201-0003-realtime';
 
 interface MigrationModule {
   up: MigrationFn<QueryInterface>;
@@ -12,4 +13,5 @@ interface MigrationModule {
 export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '20261201-0001-base', module: base },
   { name: '20261201-0002-boil-slots', module: boilSlots },
+  { name: '20261201-0003-realtime', module: realtime },
 ];

@@ -35,7 +35,7 @@ describe('migrations', () => {
     expect(await tables(scratch)).toEqual([]);
     const up = await migrator.up();
     expect(up.map((m) => m.name)).toEqual(migrations.map((m) => m.name));
-    expect(await tables(scratch)).toEqual(['boil_slots', 'cooperatives', 'evaporators', 'households', 'seasons', 'users']);
+    expect(await tables(scratch)).toEqual(['boil_slots', 'cooperatives', 'evaporators', 'households', 'seasons', 'socket_io_attachments', 'users']);
 
     const down = await migrator.down({ to: 0 });
     expect(down).toHaveLength(migrations.length);
@@ -44,7 +44,7 @@ describe('migrations', () => {
     expect(types).toEqual([]);
 
     await migrator.up();
-    expect(await tables(scratch)).toHaveLength(6);
+    expect(await tables(scratch)).toHaveLength(7);
     expect(await migrator.pending()).toEqual([]);
   });
 });
