@@ -92,3 +92,25 @@ test('the add-person form marks the fields the server refuses', async ({ page, s
   await expect(form.getByText('This e-mail address is already in use.')).toBeVisible();
   await expect(form.getByLabel('E-mail')).toHaveAttribute('aria-invalid', 'true');
 });
+
+test('a coordinator changes a person’s role from the table', async ({ page, signInAs }) => {
+  await signInAs('coordinator@larkspur.example');
+  await page.goto('/households');
+  const role = page.getByLabel('Role of Juno Varga');
+  await expect(role).toHaveValue('sugarmaker');
+  await role.selectOption('coordinator');
+  await page.getByRole('button', { name: 'Save role' }).click();
+  await expect(page.locator('[data-sonner-toast]', { hasText: 'Juno Varga is now coordinator.' })).toBeVisible();
+  await page.reload();
+  await expect(page.getByLabel('Role of Juno Varga')).toHaveValue('coordinator');
+
+  // The last coordinator cannot step down: the table says why.
+  await page.getByLabel('Role of Juno Varga').selectOption('sugarmaker');
+  await page.getByRole('button', { name: 'Save role' }).click();
+  await expect(page.locator('[data-sonner-toast]', { hasText: 'Juno Varga is now sugarmaker.' })).toBeVisible();
+  const mine = page.getByLabel('Role of Wren Castellan');
+  await page.reload();
+  await mine.selectOption('sugarmaker');
+  await page.getByRole('button', { name: 'Save role' }).click();
+  await expect(page.getByRole('alert').filter({ hasText: 'last coordinator' })).toBeVisible();
+});
