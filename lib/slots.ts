@@ -223,7 +223,7 @@ async function householdName(householdId: string, cooperativeId: string, transac
 /** Books a slot in one transaction: rules, the overlap constraint, and the confirmation e-mail. */
 export async function createSlot({ user, input }: { user: SessionUser; input: SlotInput }): Promise<SlotDto> {
   const { BoilSlot, Evaporator, sequelize } = db();
-  let householdId = input.householdId ?? user.householdId ?? undefined;
+  const householdId = input.householdId ?? user.householdId ?? undefined;
   if (!isStaff(user) && householdId !== user.householdId) {
     throw new ApiError(403, 'Members book slots for their own household only.');
   }

@@ -12,29 +12,12 @@ import { Table, TBody, TD, TH, THead, TR } from '@/components/ui/table';
 import { Badge } from '@/components/ui/badge';
 import { toast } from '@/components/ui/toaster';
 import { Alert } from '@/components/ui/alert';
-import { ApiClientError, apiSend, fetcher } from '@/lib/client/api';
+import { ApiClientError, apiSend, applyFieldErrors, fetcher } from '@/lib/client/api';
 import { ROLES, type Role } from '@/lib/roles';
 import { HouseholdInput, PersonInput } from '@/lib/validations/households';
 import type { HouseholdDto, PersonDto } from '@/lib/households';
 
 const ROLE_NAMES: Record<Role, string> = { coordinator: 'Coordinator', sugarmaker: 'Sugarmaker', member: 'Member' };
-
-/** Puts the API's per-field messages on the form's fields. */
-function applyFieldErrors<T extends Record<string, unknown>>(
-  err: unknown,
-  setError: (name: keyof T & string, e: { message: string }) => void,
-  known: (keyof T & string)[],
-): string | null {
-  if (!(err instanceof ApiClientError)) return 'Could not reach Brixhouse. Try again in a moment.';
-  let placed = false;
-  for (const [k, message] of Object.entries(err.fields)) {
-    if ((known as string[]).includes(k)) {
-      setError(k as keyof T & string, { message });
-      placed = true;
-    }
-  }
-  return placed ? null : err.message;
-}
 
 export function HouseholdsManager() {
   const households = useSWR<HouseholdDto[]>('/api/households', fetcher);

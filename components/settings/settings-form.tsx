@@ -8,7 +8,7 @@ import { Button } from '@/components/ui/button';
 import { Field, Input, fieldA11y } from '@/components/ui/input';
 import { Alert } from '@/components/ui/alert';
 import { toast } from '@/components/ui/toaster';
-import { ApiClientError, apiSend } from '@/lib/client/api';
+import { apiSend, applyFieldErrors } from '@/lib/client/api';
 import { SettingsInput } from '@/lib/validations/settings';
 
 type FormValues = z.input<typeof SettingsInput>;
@@ -43,10 +43,7 @@ export function SettingsForm({ initial }: SettingsFormProps) {
       reset(saved);
       toast.success('Settings saved.');
     } catch (err) {
-      if (err instanceof ApiClientError) {
-        for (const [k, message] of Object.entries(err.fields)) setError(k as keyof FormValues, { message });
-        if (!Object.keys(err.fields).length) setFormError(err.message);
-      } else setFormError('Could not reach Brixhouse. Try again in a moment.');
+      setFormError(applyFieldErrors<FormValues>(err, setError, FIELDS.map((f) => f.name)));
     }
   });
   return (

@@ -31,3 +31,20 @@ export function apiSend<T = unknown>(method: 'POST' | 'PATCH' | 'DELETE', url: s
     body: body === undefined ? undefined : JSON.stringify(body),
   }).then(parse);
 }
+
+/** Puts the API's per-field messages on the form's fields. */
+export function applyFieldErrors<T extends Record<string, unknown>>(
+  err: unknown,
+  setError: (name: keyof T & string, e: { message: string }) => void,
+  known: (keyof T & string)[],
+): string | null {
+  if (!(err instanceof ApiClientError)) return 'Could not reach Brixhouse. Try again in a moment.';
+  let placed = false;
+  for (const [k, message] of Object.entries(err.fields)) {
+    if ((known as string[]).includes(k)) {
+      setError(k as keyof T & string, { message });
+      placed = true;
+    }
+  }
+  return placed ? null : err.message;
+}
