@@ -1,7 +1,7 @@
-// Adds up the vitest and Playwright JSON reports into the one closing line CI reads.
+// Adds up the vitest and Playwright JSON reports and the lint result into the one closing line CI reads.
 import { existsSync, readFileSync } from 'node:fs';
 
-const [vitestFile, playwrightFile] = process.argv.slice(2);
+const [vitestFile, playwrightFile, lintFile] = process.argv.slice(2);
 let passed = 0;
 let failed = 0;
 const notes = [];
@@ -30,6 +30,14 @@ if (existsSync(playwrightFile)) {
 } else {
   failed += 1;
   notes.push('playwright: no report (the run did not finish)');
+}
+
+// The linter counts as one suite: one pass or one failure.
+if (lintFile) {
+  const lint = existsSync(lintFile) ? readFileSync(lintFile, 'utf8').trim() : 'missing';
+  if (lint === 'passed') passed += 1;
+  else failed += 1;
+  notes.push(`lint: ${lint === 'passed' ? 'clean' : lint === 'failed' ? 'problems found' : 'did not run'}`);
 }
 
 console.log(`\n${notes.join('; ')}`);

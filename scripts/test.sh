@@ -12,6 +12,10 @@ if [ ! -x /usr/bin/chromium ]; then
   as_root_apt chromium
 fi
 
+log "Lint (ESLint with the framework's rules and react-hooks)"
+rm -f "$TMPDIR/lint.status"
+if npx eslint --max-warnings 0 .; then echo passed > "$TMPDIR/lint.status"; else echo failed > "$TMPDIR/lint.status"; fi
+
 PG_WAS_RUNNING=0
 bash scripts/db.sh status > /dev/null 2>&1 && PG_WAS_RUNNING=1
 bash scripts/db.sh start
@@ -51,4 +55,4 @@ npx vitest run --reporter=default --reporter=json --outputFile.json="$TMPDIR/vit
 log "End-to-end tests (Playwright in chromium)"
 PLAYWRIGHT_JSON_OUTPUT_NAME="$TMPDIR/playwright.json" npx playwright test --reporter=list,json
 
-node scripts/test-summary.mjs "$TMPDIR/vitest.json" "$TMPDIR/playwright.json"
+node scripts/test-summary.mjs "$TMPDIR/vitest.json" "$TMPDIR/playwright.json" "$TMPDIR/lint.status"

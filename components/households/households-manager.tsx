@@ -1,7 +1,7 @@
 'use client';
 
 import useSWR from 'swr';
-import { useForm } from 'react-hook-form';
+import { useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
@@ -190,11 +190,11 @@ function AddHouseholdForm({ onAdded }: { onAdded: () => Promise<unknown> }) {
 
 function AddPersonForm({ households, onAdded }: { households: HouseholdDto[]; onAdded: () => Promise<unknown> }) {
   const [formError, setFormError] = useState<string | null>(null);
-  const { register, handleSubmit, setError, reset, watch, formState } = useForm<PersonInput>({
+  const { register, handleSubmit, setError, reset, control, formState } = useForm<PersonInput>({
     resolver: zodResolver(PersonInput),
     defaultValues: { role: 'member', householdId: '' as unknown as null },
   });
-  const role = watch('role');
+  const role = useWatch({ control, name: 'role' });
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null);
     try {

@@ -1,7 +1,7 @@
 import type { ComponentProps } from 'react';
 import { cn } from '@/lib/utils';
 
-export interface CardProps extends ComponentProps<'div'> {}
+export type CardProps = ComponentProps<'div'>;
 
 export function Card({ className, ...props }: CardProps) {
   return (
@@ -12,7 +12,7 @@ export function Card({ className, ...props }: CardProps) {
   );
 }
 
-export interface CardHeaderProps extends ComponentProps<'div'> {}
+export type CardHeaderProps = ComponentProps<'div'>;
 
 export function CardHeader({ className, ...props }: CardHeaderProps) {
   return <div className={cn('flex flex-col gap-1 px-5 pt-5', className)} {...props} />;
@@ -27,7 +27,7 @@ export function CardTitle({ as: Heading = 'h2', className, ...props }: CardTitle
   return <Heading className={cn('text-lg font-bold leading-snug text-slate', className)} {...props} />;
 }
 
-export interface CardBodyProps extends ComponentProps<'div'> {}
+export type CardBodyProps = ComponentProps<'div'>;
 
 export function CardBody({ className, ...props }: CardBodyProps) {
   return <div className={cn('flex flex-col gap-3 px-5 pt-3 pb-5 text-base text-slate', className)} {...props} />;

@@ -11,19 +11,19 @@ export const controlVariants = cva([
   'aria-invalid:border-ember aria-invalid:ring-1 aria-invalid:ring-ember',
 ]);
 
-export interface InputProps extends ComponentProps<'input'> {}
+export type InputProps = ComponentProps<'input'>;
 
 export function Input({ className, type = 'text', ...props }: InputProps) {
   return <input type={type} className={cn(controlVariants(), className)} {...props} />;
 }
 
-export interface TextareaProps extends ComponentProps<'textarea'> {}
+export type TextareaProps = ComponentProps<'textarea'>;
 
 export function Textarea({ className, rows = 4, ...props }: TextareaProps) {
   return <textarea rows={rows} className={cn(controlVariants(), 'resize-y leading-relaxed', className)} {...props} />;
 }
 
-export interface LabelProps extends ComponentProps<'label'> {}
+export type LabelProps = ComponentProps<'label'>;
 
 export function Label({ className, ...props }: LabelProps) {
   return <label className={cn('block text-base font-semibold text-slate', className)} {...props} />;

@@ -21,19 +21,19 @@ export function Table({ label, containerClassName, className, ...props }: TableP
   );
 }
 
-export interface THeadProps extends ComponentProps<'thead'> {}
+export type THeadProps = ComponentProps<'thead'>;
 
 export function THead({ className, ...props }: THeadProps) {
   return <thead className={cn('border-b border-birch-line bg-birch', className)} {...props} />;
 }
 
-export interface TBodyProps extends ComponentProps<'tbody'> {}
+export type TBodyProps = ComponentProps<'tbody'>;
 
 export function TBody({ className, ...props }: TBodyProps) {
   return <tbody className={cn('divide-y divide-birch-line', className)} {...props} />;
 }
 
-export interface TRProps extends ComponentProps<'tr'> {}
+export type TRProps = ComponentProps<'tr'>;
 
 export function TR({ className, ...props }: TRProps) {
   return <tr className={cn('align-top', className)} {...props} />;

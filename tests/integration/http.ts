@@ -16,6 +16,7 @@ export class Client {
     return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
   }
 
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any -- tests read the JSON answers freely
   async request(method: string, path: string, body?: unknown, raw?: string): Promise<{ status: number; body: any }> {
     const res = await fetch(`${BASE_URL}${path}`, {
       method,
