@@ -26,6 +26,8 @@ export class Cooperative extends Model<InferAttributes<Cooperative>, InferCreati
   declare shelfDays: CreationOptional<number>;
   declare warmAboveC: CreationOptional<number>;
   declare warmShelfDays: CreationOptional<number>;
+  /** Grows by one with every change the live screens show (lib/events); bigint, read as a string. */
+  declare changeVersion: CreationOptional<string>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -47,6 +49,7 @@ export class Cooperative extends Model<InferAttributes<Cooperative>, InferCreati
         shelfDays: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 7 },
         warmAboveC: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 7 },
         warmShelfDays: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 3 },
+        changeVersion: { type: DataTypes.BIGINT, allowNull: false, defaultValue: '0' },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -6,12 +6,14 @@ import { User } from './user';
 import { Season } from './season';
 import { Evaporator } from './evaporator';
 import { BoilSlot } from './boil-slot';
+import { SapDelivery } from './sap-delivery';
+import { DeliveryRevision } from './delivery-revision';
 
-export { Cooperative, Household, User, Season, Evaporator, BoilSlot };
+export { Cooperative, Household, User, Season, Evaporator, BoilSlot, SapDelivery, DeliveryRevision };
 export type { Role } from './user';
 export { ROLES } from './user';
 
-const models = { Cooperative, Household, User, Season, Evaporator, BoilSlot };
+const models = { Cooperative, Household, User, Season, Evaporator, BoilSlot, SapDelivery, DeliveryRevision };
 export type Models = typeof models;
 
 // Per module instance: Next bundles its own copy of these classes beside the custom server's.
@@ -27,6 +29,10 @@ function wire(sequelize: Sequelize) {
   BoilSlot.belongsTo(Household, { foreignKey: 'householdId', as: 'household' });
   BoilSlot.belongsTo(Evaporator, { foreignKey: 'evaporatorId', as: 'evaporator' });
   BoilSlot.belongsTo(Season, { foreignKey: 'seasonId', as: 'season' });
+  SapDelivery.belongsTo(Household, { foreignKey: 'householdId', as: 'household' });
+  SapDelivery.belongsTo(Season, { foreignKey: 'seasonId', as: 'season' });
+  SapDelivery.hasMany(DeliveryRevision, { foreignKey: 'deliveryId', as: 'revisions' });
+  DeliveryRevision.belongsTo(SapDelivery, { foreignKey: 'deliveryId', as: 'delivery' });
 }
 
 /** The models, bound once to the shared Sequelize instance. */

@@ -29,7 +29,7 @@ export const DEMO_SIGN_INS = [
   ...DEMO_HOUSEHOLDS.map((h) => ({ email: h.email, role: 'member' as const })),
 ];
 
-const TABLES = ['boil_slots', 'users', 'evaporators', 'seasons', 'households', 'cooperatives'];
+const TABLES = ['delivery_revisions', 'sap_deliveries', 'boil_slots', 'users', 'evaporators', 'seasons', 'households', 'cooperatives'];
 
 /** Removes every row of the domain tables (tests start each suite from the demo data). */
 export async function truncateAll(transaction?: Transaction) {
