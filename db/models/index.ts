@@ -8,12 +8,17 @@ import { Evaporator } from './evaporator';
 import { BoilSlot } from './boil-slot';
 import { SapDelivery } from './sap-delivery';
 import { DeliveryRevision } from './delivery-revision';
+import { BoilRun } from './boil-run';
+import { RunInput } from './run-input';
+import { SyrupDraw } from './syrup-draw';
+import { FuelUse } from './fuel-use';
+import { DisplayLink } from './display-link';
 
-export { Cooperative, Household, User, Season, Evaporator, BoilSlot, SapDelivery, DeliveryRevision };
+export { Cooperative, Household, User, Season, Evaporator, BoilSlot, SapDelivery, DeliveryRevision, BoilRun, RunInput, SyrupDraw, FuelUse, DisplayLink };
 export type { Role } from './user';
 export { ROLES } from './user';
 
-const models = { Cooperative, Household, User, Season, Evaporator, BoilSlot, SapDelivery, DeliveryRevision };
+const models = { Cooperative, Household, User, Season, Evaporator, BoilSlot, SapDelivery, DeliveryRevision, BoilRun, RunInput, SyrupDraw, FuelUse, DisplayLink };
 export type Models = typeof models;
 
 // Per module instance: Next bundles its own copy of these classes beside the custom server's.
@@ -33,6 +38,9 @@ function wire(sequelize: Sequelize) {
   SapDelivery.belongsTo(Season, { foreignKey: 'seasonId', as: 'season' });
   SapDelivery.hasMany(DeliveryRevision, { foreignKey: 'deliveryId', as: 'revisions' });
   DeliveryRevision.belongsTo(SapDelivery, { foreignKey: 'deliveryId', as: 'delivery' });
+  BoilRun.hasMany(RunInput, { foreignKey: 'runId', as: 'inputs' });
+  BoilRun.hasMany(SyrupDraw, { foreignKey: 'runId', as: 'draws' });
+  BoilRun.hasMany(FuelUse, { foreignKey: 'runId', as: 'fuel' });
 }
 
 /** The models, bound once to the shared Sequelize instance. */
