@@ -9,6 +9,8 @@ import { env } from '@/lib/env';
 import { coopRoom, setRealtimeServer } from '@/lib/realtime';
 import { startMailWorker, stopMailQueue } from '@/lib/mail/outbox';
 import { getSequelize } from '@/db';
+import { displayRoom, findDisplayLink } from '@/lib/display/tokens';
+import { sendCurrentQueue, startQueueBroadcaster } from '@/lib/queue/live';
 
 const SESSION_COOKIES = ['__Secure-next-auth.session-token', 'next-auth.session-token'];
 
@@ -36,6 +38,14 @@ async function main() {
   io.adapter(createAdapter(adapterPool, { tableName: 'socket_io_attachments' }));
   io.use(async (socket, nextFn) => {
     try {
+      // A sugarhouse screen opened by a display link: read-only, its co-op's queue only.
+      const displayToken = (socket.handshake.auth as { displayToken?: unknown } | undefined)?.displayToken;
+      if (displayToken !== undefined) {
+        const link = await findDisplayLink(displayToken);
+        if (!link) return nextFn(new Error('This display link is not valid.'));
+        socket.data.display = { kind: 'display', displayLinkId: link.id, cooperativeId: link.cooperativeId };
+        return nextFn();
+      }
       const cookies = parseCookie(socket.request.headers.cookie ?? '');
       const raw = SESSION_COOKIES.map((n) => cookies[n]).find(Boolean);
       const token = raw ? await decode({ token: raw, secret: e.NEXTAUTH_SECRET }) : null;
@@ -47,9 +57,13 @@ async function main() {
     }
   });
   io.on('connection', (socket) => {
-    socket.join(coopRoom(socket.data.user.cooperativeId));
+    const cooperativeId: string = socket.data.display?.cooperativeId ?? socket.data.user.cooperativeId;
+    socket.join(coopRoom(cooperativeId));
+    if (socket.data.display) socket.join(displayRoom(socket.data.display.displayLinkId));
+    void sendCurrentQueue(socket, cooperativeId);
   });
   setRealtimeServer(io);
+  startQueueBroadcaster(io);
 
   await startMailWorker();
 

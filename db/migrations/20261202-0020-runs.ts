@@ -135,6 +135,8 @@ export const up: MigrationFn<QueryInterface> = async ({ context: qi }) => {
       ADD COLUMN litres_boiled double precision NOT NULL DEFAULT 0,
       ADD CONSTRAINT sap_deliveries_not_overdrawn CHECK (litres_boiled >= 0 AND litres_boiled <= volume_l),
       ADD CONSTRAINT sap_deliveries_boiled_only_accepted CHECK (litres_boiled = 0 OR status = 'accepted');
+    -- The Boil queue reads only lots with sap left to boil.
+    CREATE INDEX sap_deliveries_waiting ON sap_deliveries (cooperative_id) WHERE status = 'accepted' AND litres_boiled < volume_l;
 
     -- Keeps litres_boiled the sum of the lot's run inputs. The UPDATE takes the lot's row lock, so two
     -- concurrent inputs are applied one after the other and the check above sees the second's total.
@@ -164,6 +166,7 @@ export const down: MigrationFn<QueryInterface> = async ({ context: qi }) => {
   await qi.sequelize.query(`
     DROP TRIGGER IF EXISTS run_inputs_track_boiled ON run_inputs;
     DROP FUNCTION IF EXISTS run_inputs_track_boiled();
+    DROP INDEX IF EXISTS sap_deliveries_waiting;
     ALTER TABLE sap_deliveries
       DROP CONSTRAINT IF EXISTS sap_deliveries_not_overdrawn,
       DROP CONSTRAINT IF EXISTS sap_deliveries_boiled_only_accepted,

@@ -4,6 +4,7 @@ import * as base from './20261201-0001-base';
 import * as boilSlots from './20261201-0002-boil-slots';
 import * as realtime from './20261201-0003-realtime';
 import * as deliveries from './20261202-0010-deliveries';
+import * as runs from './20261202-0020-runs';
 
 interface MigrationModule {
   up: MigrationFn<QueryInterface>;
@@ -16,4 +17,5 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '20261201-0002-boil-slots', module: boilSlots },
   { name: '20261201-0003-realtime', module: realtime },
   { name: '20261202-0010-deliveries', module: deliveries },
+  { name: '20261202-0020-runs', module: runs },
 ];

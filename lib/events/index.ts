@@ -11,7 +11,12 @@ import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 export type ChangeEvent =
   | { type: 'delivery.accepted'; deliveryId: string; householdId: string }
   | { type: 'delivery.rejected'; deliveryId: string; householdId: string }
-  | { type: 'delivery.corrected'; deliveryId: string; householdId: string; revisionId: string };
+  | { type: 'delivery.corrected'; deliveryId: string; householdId: string; revisionId: string }
+  | { type: 'slot.booked' | 'slot.moved' | 'slot.cancelled'; slotId: string }
+  | { type: 'run.started' | 'run.finished'; runId: string }
+  | { type: 'run.input'; runId: string; deliveryId: string }
+  | { type: 'run.draw'; runId: string; drawId: string }
+  | { type: 'run.fuel'; runId: string; fuelId: string };
 
 export type ChangeEventType = ChangeEvent['type'];
 

@@ -1,0 +1,14 @@
+import { NextResponse } from 'next/server';
+import { requireRole } from '@/lib/auth/session';
+import { readJson, route } from '@/lib/api/errors';
+import { addInputs } from '@/lib/runs/service';
+import { RunInputsInput } from '@/lib/runs/schema';
+
+type Ctx = { params: Promise<{ id: string }> };
+
+export const POST = route<Ctx>(async (req, { params }) => {
+  const user = await requireRole(['sugarmaker', 'coordinator']);
+  const { id } = await params;
+  const input = RunInputsInput.parse(await readJson(req));
+  return NextResponse.json(await addInputs({ actor: user, cooperativeId: user.cooperativeId }, id, input), { status: 201 });
+});

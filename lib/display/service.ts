@@ -1,0 +1,44 @@
+import 'server-only';
+import type { Server } from 'socket.io';
+import { db } from '@/db/models';
+import { ApiError } from '@/lib/api/errors';
+import type { SessionUser } from '@/lib/auth/session';
+import { appUrl } from '@/lib/env';
+import { displayRoom, hashDisplayToken, newDisplayToken } from './tokens';
+import type { DisplayLinkDto } from './types';
+
+interface Ctx {
+  actor: Pick<SessionUser, 'id' | 'role'>;
+  cooperativeId: string;
+}
+
+function mustCoordinate(ctx: Ctx) {
+  if (ctx.actor.role !== 'coordinator') throw new ApiError(403, 'Only the coordinator manages display links.');
+}
+
+export async function listDisplayLinks(ctx: Ctx): Promise<DisplayLinkDto[]> {
+  mustCoordinate(ctx);
+  const rows = await db().DisplayLink.findAll({ where: { cooperativeId: ctx.cooperativeId }, order: [['createdAt', 'DESC']], raw: true });
+  return rows.map((r) => ({ id: r.id, name: r.name, createdAt: new Date(r.createdAt).toISOString(), revokedAt: r.revokedAt ? new Date(r.revokedAt).toISOString() : null }));
+}
+
+/** Makes a display link; the answer is the only time its address (with the token) is shown. */
+export async function createDisplayLink(ctx: Ctx, { name }: { name: string }): Promise<DisplayLinkDto & { url: string }> {
+  mustCoordinate(ctx);
+  const token = newDisplayToken();
+  const link = await db().DisplayLink.create({ cooperativeId: ctx.cooperativeId, name, tokenHash: hashDisplayToken(token), createdById: ctx.actor.id });
+  return { id: link.id, name: link.name, createdAt: link.createdAt.toISOString(), revokedAt: null, url: `${appUrl()}/display/${token}` };
+}
+
+/** Revokes a link: its page answers 404 from now on and the screens showing it are disconnected. */
+export async function revokeDisplayLink(ctx: Ctx, id: string): Promise<DisplayLinkDto> {
+  mustCoordinate(ctx);
+  if (!/^[0-9a-f-]{36}$/i.test(id)) throw new ApiError(404, 'That display link was not found.');
+  const link = await db().DisplayLink.findOne({ where: { id, cooperativeId: ctx.cooperativeId } });
+  if (!link) throw new ApiError(404, 'That display link was not found.');
+  if (!link.revokedAt) await link.update({ revokedAt: new Date(), revokedById: ctx.actor.id });
+  const io = (globalThis as unknown as { __brixhouseIo?: Server }).__brixhouseIo;
+  // Through the adapter this reaches the screens on every server process.
+  io?.in(displayRoom(link.id)).disconnectSockets(true);
+  return { id: link.id, name: link.name, createdAt: link.createdAt.toISOString(), revokedAt: link.revokedAt!.toISOString() };
+}

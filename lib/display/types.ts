@@ -1,0 +1,6 @@
+export interface DisplayLinkDto {
+  id: string;
+  name: string;
+  createdAt: string;
+  revokedAt: string | null;
+}

@@ -1,0 +1,72 @@
+// Runs in server.ts (plain Node): no 'server-only' marker.
+import type { Server, Socket } from 'socket.io';
+import { onChange } from '@/lib/events';
+import { coopRoom } from '@/lib/realtime';
+import { computeSnapshot, currentSnapshot, rememberSnapshot } from './service';
+
+/** Bursts of changes within this many milliseconds make one snapshot. */
+const COALESCE_MS = 40;
+
+interface Pending {
+  timer: ReturnType<typeof setTimeout> | null;
+  running: boolean;
+  again: boolean;
+}
+
+/**
+ * Broadcasts the Boil queue after every committed change. Only the process where the change was
+ * written hears it (listeners run after its commit), so each change is computed once, not once
+ * per process or per socket; socket.io's PostgreSQL adapter carries the one `queue` event to the
+ * screens on every other process. The snapshot is read after the change, so it carries the newest
+ * version, and a burst of changes makes one snapshot.
+ */
+export function startQueueBroadcaster(io: Server): () => void {
+  const pending = new Map<string, Pending>();
+
+  async function flush(cooperativeId: string) {
+    const p = pending.get(cooperativeId)!;
+    p.timer = null;
+    if (p.running) {
+      p.again = true;
+      return;
+    }
+    p.running = true;
+    try {
+      const snapshot = await computeSnapshot(cooperativeId);
+      if (snapshot) {
+        rememberSnapshot(cooperativeId, snapshot);
+        io.to(coopRoom(cooperativeId)).emit('queue', snapshot);
+      }
+    } catch (err) {
+      console.error('queue broadcast failed', err);
+    } finally {
+      p.running = false;
+      if (p.again) {
+        p.again = false;
+        schedule(cooperativeId);
+      } else if (!p.timer) pending.delete(cooperativeId);
+    }
+  }
+
+  function schedule(cooperativeId: string) {
+    let p = pending.get(cooperativeId);
+    if (!p) pending.set(cooperativeId, (p = { timer: null, running: false, again: false }));
+    if (p.running) {
+      p.again = true;
+      return;
+    }
+    p.timer ??= setTimeout(() => void flush(cooperativeId), COALESCE_MS);
+  }
+
+  return onChange(({ cooperativeId }) => schedule(cooperativeId));
+}
+
+/** A screen that just joined gets the current queue at once. */
+export async function sendCurrentQueue(socket: Socket, cooperativeId: string) {
+  try {
+    const cached = await currentSnapshot(cooperativeId);
+    if (cached) socket.emit('queue', cached.snapshot);
+  } catch (err) {
+    console.error('queue for a new screen failed', err);
+  }
+}
