@@ -9,9 +9,6 @@ export type BoilingPlace =
   | { elevationM: number; pressureKPa?: undefined }
   | { pressureKPa: number; elevationM?: undefined };
 
-/** Finished syrup boils about 7 °F (≈ 3.9 °C) above water at the same place and hour (trade practice). */
-export const DEFAULT_DRAW_OFF_OFFSET_C = 3.9;
-
 /** Elevation range accepted (m): the troposphere, where the standard-atmosphere formula holds. */
 export const ELEVATION_RANGE_M = { min: -500, max: 11000 } as const;
 /** Pressure range accepted (kPa): IAPWS-IF97 region 4, triple point to critical point. */
@@ -49,7 +46,29 @@ export function saturationTemperatureK(pressureKPa: number): number {
   return (n10 + d - Math.sqrt((n10 + d) * (n10 + d) - 4 * (n9 + n10 * d))) / 2;
 }
 
-function pressureAt(place: BoilingPlace): number {
+/** Temperature range accepted (K): IAPWS-IF97 region 4, triple point to critical point. */
+export const SATURATION_RANGE_K = { min: 273.15, max: 647.096 } as const;
+
+/**
+ * Saturation (vapour) pressure of water (kPa) at a temperature (K), IAPWS-IF97 region 4
+ * basic equation (IAPWS, Revised Release on the IAPWS Industrial Formulation 1997,
+ * eq. 30); the inverse of {@link saturationTemperatureK}.
+ */
+export function saturationPressureKPa(temperatureK: number): number {
+  numberInRange('temperatureK', temperatureK, SATURATION_RANGE_K.min, SATURATION_RANGE_K.max);
+  const [n1, n2, n3, n4, n5, n6, n7, n8, n9, n10] = N;
+  const theta = temperatureK + n9 / (temperatureK - n10);
+  const a = theta * theta + n1 * theta + n2;
+  const b = n3 * theta * theta + n4 * theta + n5;
+  const c = n6 * theta * theta + n7 * theta + n8;
+  return Math.pow((2 * c) / (-b + Math.sqrt(b * b - 4 * a * c)), 4) * 1000;
+}
+
+/**
+ * Absolute pressure (kPa) at a place: the measured pressure, or the standard atmosphere
+ * at the elevation.
+ */
+export function placePressureKPa(place: BoilingPlace): number {
   if (place === null || typeof place !== 'object') {
     throw new RangeError('place must be an object with elevationM or pressureKPa');
   }
@@ -59,7 +78,7 @@ function pressureAt(place: BoilingPlace): number {
     throw new RangeError('place must give exactly one of elevationM or pressureKPa');
   }
   return hasPressure
-    ? (place.pressureKPa as number)
+    ? numberInRange('pressureKPa', place.pressureKPa, PRESSURE_RANGE_KPA.min, PRESSURE_RANGE_KPA.max)
     : standardPressureKPa(place.elevationM as number);
 }
 
@@ -68,15 +87,5 @@ function pressureAt(place: BoilingPlace): number {
  * or at a measured absolute pressure (IAPWS-IF97 saturation line).
  */
 export function waterBoilingPointC(place: BoilingPlace): number {
-  return saturationTemperatureK(pressureAt(place)) - 273.15;
-}
-
-/**
- * Draw-off temperature (°C) for finished syrup: the boiling point of water at the
- * place plus `offsetC` (default 3.9 °C ≈ 7 °F, trade practice; a cooperative setting,
- * since the exact figure depends on the syrup density the cooperative finishes to).
- */
-export function drawOffTemperatureC(place: BoilingPlace, offsetC: number = DEFAULT_DRAW_OFF_OFFSET_C): number {
-  numberInRange('offsetC', offsetC, 0, 10);
-  return waterBoilingPointC(place) + offsetC;
+  return saturationTemperatureK(placePressureKPa(place)) - 273.15;
 }

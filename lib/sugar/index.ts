@@ -16,15 +16,33 @@ export {
   type SapRatioRule,
 } from './syrup-yield';
 export {
-  DEFAULT_DRAW_OFF_OFFSET_C,
   ELEVATION_RANGE_M,
   PRESSURE_RANGE_KPA,
-  drawOffTemperatureC,
+  SATURATION_RANGE_K,
+  placePressureKPa,
+  saturationPressureKPa,
   saturationTemperatureK,
   standardPressureKPa,
   waterBoilingPointC,
   type BoilingPlace,
 } from './boiling-point';
+export {
+  BPE_BRIX_RANGE,
+  BPE_PRESSURE_RANGE_KPA,
+  WATER_ACTIVITY_RANGE_C,
+  boilingPointElevationC,
+  drawOffTargetC,
+  sucroseMoleFraction,
+  sucroseWaterActivity,
+  type DrawOffInput,
+} from './draw-off';
+export {
+  HYDROMETER_BRIX_RANGE,
+  HYDROMETER_CALIBRATION_C,
+  HYDROMETER_TEMP_RANGE_C,
+  VERMONT_DENSITY_CHART,
+  hydrometerReadingBrix,
+} from './hydrometer';
 export { GRADE_CLASSES, GRADE_CLASS_INFO, gradeClass, type GradeClass, type GradeClassInfo } from './grade';
 export {
   SPOILAGE_DEFAULTS,

@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import { requireRole } from '@/lib/auth/session';
 import { getCooperative, listEvaporators } from '@/lib/coop';
-import { DEFAULT_DRAW_OFF_OFFSET_C, GRADE_CLASSES, GRADE_CLASS_INFO, formatBrix, formatVolume, standardPressureKPa } from '@/lib/sugar';
+import { GRADE_CLASSES, GRADE_CLASS_INFO, formatBrix, formatVolume, standardPressureKPa } from '@/lib/sugar';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { Alert } from '@/components/ui/alert';
 import { Badge } from '@/components/ui/badge';
@@ -34,10 +34,11 @@ export default async function SugarhousePage() {
           </CardHeader>
           <CardBody className="flex flex-col gap-4">
             <p>
-              Syrup reaches density about {units === 'us' ? '7 °F' : '4 °C'} above the boiling point of water at the same place and hour (common
-              practice). Confirm every draw-off with a hydrometer or refractometer: {formatBrix(coop.syrupBrix)} is the co-op’s target.
+              Syrup is finished at the co-op’s density, {formatBrix(coop.syrupBrix)}. It boils above water by the boiling-point elevation of a
+              sucrose solution of that density (Starzak &amp; Peacock, Zuckerindustrie, 1997), close to the trade’s “about{' '}
+              {units === 'us' ? '7 °F' : '4 °C'} above water” shortcut. Confirm every draw-off with a hydrometer or refractometer.
             </p>
-            <DrawOffCalculator elevationM={coop.elevationM} offsetC={DEFAULT_DRAW_OFF_OFFSET_C} unitSystem={units} />
+            <DrawOffCalculator elevationM={coop.elevationM} finishBrix={coop.syrupBrix} unitSystem={units} />
           </CardBody>
         </Card>
         <Card>

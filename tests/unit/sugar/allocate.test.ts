@@ -28,7 +28,7 @@ function integerHamilton(ws: readonly Weight[], total: number): number[] {
 }
 
 describe('allocate: largest remainder (Hamilton method)', () => {
-  it('shares 10 units 5 : 3 : 2 exactly', () => {
+  it('shares 10 units 5 : 3 : 2 exactly (Hamilton’s method, Balinski & Young, Fair Representation, Yale University Press, 1982)', () => {
     expect(allocate([{ key: 'Okafor', weight: 5 }, { key: 'Lindqvist', weight: 3 }, { key: 'Szabo', weight: 2 }], 10)).toEqual([
       { key: 'Okafor', amount: 5 },
       { key: 'Lindqvist', amount: 3 },
@@ -36,18 +36,18 @@ describe('allocate: largest remainder (Hamilton method)', () => {
     ]);
   });
 
-  it('gives the leftover units to the largest remainders', () => {
+  it('gives the leftover units to the largest remainders (Hamilton’s method, Balinski & Young, Fair Representation, Yale University Press, 1982)', () => {
     // quotas 100·(0.41, 0.335, 0.255) over 7 → 5.857, 4.786, 3.643 → floors 5, 4, 3, two left.
     const out = allocate([{ key: 'a', weight: 0.41 }, { key: 'b', weight: 0.335 }, { key: 'c', weight: 0.255 }], 14);
     expect(out.map((r) => r.amount)).toEqual([6, 5, 3]);
   });
 
-  it('breaks a remainder tie by the larger weight', () => {
+  it('breaks a remainder tie by the larger weight (co-op rule; common practice)', () => {
     // 2 units over weights 1 and 3: quotas 0.5 and 1.5, equal remainders.
     expect(allocate([{ key: 'a', weight: 1 }, { key: 'b', weight: 3 }], 2).map((r) => r.amount)).toEqual([0, 2]);
   });
 
-  it('breaks a full tie by key, whatever the input order', () => {
+  it('breaks a full tie by key, whatever the input order (co-op rule; common practice)', () => {
     const a = allocate([{ key: 'Nakamura', weight: 1 }, { key: 'Brennan', weight: 1 }, { key: 'Ferreira', weight: 1 }], 2);
     expect(a).toEqual([
       { key: 'Nakamura', amount: 0 },
@@ -56,7 +56,7 @@ describe('allocate: largest remainder (Hamilton method)', () => {
     ]);
   });
 
-  it('compares remainders exactly where floating point mis-orders them', () => {
+  it('compares remainders exactly where floating point mis-orders them (Hamilton’s method, Balinski & Young, Fair Representation, Yale University Press, 1982)', () => {
     // 900 units over 1.5 : 5.625 : 4.375 (= 12 : 45 : 35 of 92): quotas 117 + 36/92,
     // 440 + 20/92 and 342 + 36/92. The first and last remainders tie exactly, so the one
     // unit left goes to the larger weight. Computed as doubles, total·w/Σw makes the
@@ -67,7 +67,7 @@ describe('allocate: largest remainder (Hamilton method)', () => {
     expect(q(1.5) - Math.floor(q(1.5))).toBeGreaterThan(q(4.375) - Math.floor(q(4.375)));
   });
 
-  it('zero total gives zeros, also with all-zero or no weights', () => {
+  it('zero total gives zeros, also with all-zero or no weights (Hamilton’s method, Balinski & Young, Fair Representation, Yale University Press, 1982)', () => {
     expect(allocate([{ key: 'a', weight: 0 }, { key: 'b', weight: 0 }], 0)).toEqual([
       { key: 'a', amount: 0 },
       { key: 'b', amount: 0 },
@@ -75,12 +75,12 @@ describe('allocate: largest remainder (Hamilton method)', () => {
     expect(allocate([], 0)).toEqual([]);
   });
 
-  test.prop([weightsArb, totalArb])('always sums to total', (ws, total) => {
+  test.prop([weightsArb, totalArb])('always sums to total (Hamilton’s method, Balinski & Young, Fair Representation, Yale University Press, 1982)', (ws, total) => {
     fc.pre(withSomeWeight(ws));
     expect(sum(allocate(ws, total).map((r) => r.amount))).toBe(total);
   });
 
-  test.prop([weightsArb, totalArb])('gives 0 to weight 0 and whole, non-negative amounts to all', (ws, total) => {
+  test.prop([weightsArb, totalArb])('gives 0 to weight 0 and whole, non-negative amounts to all (Hamilton’s method, Balinski & Young, Fair Representation, Yale University Press, 1982)', (ws, total) => {
     fc.pre(withSomeWeight(ws));
     allocate(ws, total).forEach((r, i) => {
       expect(Number.isSafeInteger(r.amount) && r.amount >= 0).toBe(true);
@@ -88,7 +88,7 @@ describe('allocate: largest remainder (Hamilton method)', () => {
     });
   });
 
-  test.prop([weightsArb, totalArb])('never gives a larger weight less than a smaller one', (ws, total) => {
+  test.prop([weightsArb, totalArb])('never gives a larger weight less than a smaller one (Hamilton’s method, Balinski & Young, Fair Representation, Yale University Press, 1982)', (ws, total) => {
     fc.pre(withSomeWeight(ws));
     const out = allocate(ws, total);
     for (let i = 0; i < ws.length; i++) {
@@ -99,7 +99,7 @@ describe('allocate: largest remainder (Hamilton method)', () => {
   });
 
   test.prop([weightsArb, totalArb, fc.infiniteStream(fc.double({ min: 0, max: 1, noNaN: true }))])(
-    'is independent of input order',
+    'is independent of input order (co-op rule; common practice)',
     (ws, total, randoms) => {
       fc.pre(withSomeWeight(ws));
       const shuffled = ws
@@ -112,7 +112,7 @@ describe('allocate: largest remainder (Hamilton method)', () => {
   );
 
   test.prop([weightsArb, totalArb, fc.integer({ min: -30, max: 30 })])(
-    'is unchanged when every weight is scaled by a power of two (exact arithmetic)',
+    'is unchanged when every weight is scaled by a power of two (exact arithmetic; Hamilton’s method is scale-free, Balinski & Young 1982)',
     (ws, total, k) => {
       fc.pre(withSomeWeight(ws));
       const scaled = ws.map((w) => ({ key: w.key, weight: w.weight * 2 ** k }));
@@ -128,14 +128,14 @@ describe('allocate: largest remainder (Hamilton method)', () => {
       maxLength: 12,
     }),
     fc.integer({ min: 0, max: 100_000 }),
-  ])('matches Hamilton\'s method spelled out on integer weights', (ws, total) => {
+  ])('matches Hamilton\'s method spelled out on integer weights (Hamilton’s method, Balinski & Young, Fair Representation, Yale University Press, 1982)', (ws, total) => {
     fc.pre(withSomeWeight(ws));
     expect(allocate(ws, total).map((r) => r.amount)).toEqual(integerHamilton(ws, total));
   });
 });
 
 describe('allocateRun: a run\'s syrup (mL) and fuel (cents) by sugar delivered', () => {
-  it('splits exactly and merges a household\'s several inputs', () => {
+  it('splits exactly and merges a household\'s several inputs (Hamilton’s method, Balinski & Young, Fair Representation, Yale University Press, 1982)', () => {
     const rows = allocateRun(
       [
         { household: 'Okafor', sugarKg: 2.5 },
@@ -160,7 +160,7 @@ describe('allocateRun: a run\'s syrup (mL) and fuel (cents) by sugar delivered',
     ),
     fc.integer({ min: 0, max: 500_000 }),
     fc.integer({ min: 0, max: 10_000_000 }),
-  ])('conserves both totals and the sugar, with shares summing to 1', (inputs, syrupMl, fuelCents) => {
+  ])('conserves both totals and the sugar, with shares summing to 1 (Hamilton’s method, Balinski & Young, Fair Representation, Yale University Press, 1982)', (inputs, syrupMl, fuelCents) => {
     const rows = allocateRun(inputs, { syrupMl, fuelCents });
     expect(new Set(rows.map((r) => r.household)).size).toBe(rows.length);
     expect(sum(rows.map((r) => r.syrupMl))).toBe(syrupMl);
@@ -169,7 +169,7 @@ describe('allocateRun: a run\'s syrup (mL) and fuel (cents) by sugar delivered',
     expect(sum(rows.map((r) => r.sugarKg))).toBeCloseTo(sum(inputs.map((i) => i.sugarKg)), 9);
   });
 
-  it('merging is exact: split inputs allocate as their sum', () => {
+  it('merging is exact: split inputs allocate as their sum (Hamilton’s method, Balinski & Young, Fair Representation, Yale University Press, 1982)', () => {
     const split = allocateRun(
       [
         { household: 'Szabo', sugarKg: 0.5 },
@@ -193,7 +193,7 @@ describe('allocateRun: a run\'s syrup (mL) and fuel (cents) by sugar delivered',
     ]);
   });
 
-  it('a run with no syrup and no fuel yet gives zeros and zero shares', () => {
+  it('a run with no syrup and no fuel yet gives zeros and zero shares (Hamilton’s method, Balinski & Young, Fair Representation, Yale University Press, 1982)', () => {
     expect(allocateRun([{ household: 'Brennan', sugarKg: 0 }], { syrupMl: 0, fuelCents: 0 })).toEqual([
       { household: 'Brennan', sugarKg: 0, share: 0, syrupMl: 0, fuelCents: 0 },
     ]);

@@ -32,7 +32,15 @@ const cases: Case[] = [
   ['waterBoilingPointC pressure too high', () => sugar.waterBoilingPointC({ pressureKPa: 30_000 }), /^pressureKPa /],
   ['waterBoilingPointC neither', () => sugar.waterBoilingPointC({} as never), /^place must give exactly one of elevationM or pressureKPa$/],
   ['waterBoilingPointC both', () => sugar.waterBoilingPointC({ elevationM: 300, pressureKPa: 97 } as never), /^place must give exactly one/],
-  ['drawOffTemperatureC offset 15', () => sugar.drawOffTemperatureC({ elevationM: 0 }, 15), /^offsetC must be a number from 0 to 10 \(got 15\)$/],
+  ['saturationPressureKPa below the triple point', () => sugar.saturationPressureKPa(200), /^temperatureK must be a number from 273.15 to 647.096 \(got 200\)$/],
+  ['boilingPointElevationC 90 °Bx', () => sugar.boilingPointElevationC(90), /^brix must be a number from 0 to 85 \(got 90\)$/],
+  ['boilingPointElevationC 1 kPa', () => sugar.boilingPointElevationC(66.9, 1), /^pressureKPa must be a number from 5 to 250 \(got 1\)$/],
+  ['sucroseWaterActivity 200 °C', () => sugar.sucroseWaterActivity(66.9, 200), /^tempC must be a number from 0 to 150 \(got 200\)$/],
+  ['drawOffTargetC no finishBrix', () => sugar.drawOffTargetC({ elevationM: 310 } as never), /^finishBrix must be a number from 0 to 85 \(got undefined\)$/],
+  ['drawOffTargetC neither place', () => sugar.drawOffTargetC({ finishBrix: 66.9 } as never), /^place must give exactly one of elevationM or pressureKPa$/],
+  ['drawOffTargetC not an object', () => sugar.drawOffTargetC(null as never), /^input must be an object/],
+  ['hydrometerReadingBrix sap', () => sugar.hydrometerReadingBrix(2, 20), /^brix must be a number from 60 to 70 \(got 2\)$/],
+  ['hydrometerReadingBrix frozen', () => sugar.hydrometerReadingBrix(66.9, -5), /^tempC must be a number from 10 to 110 \(got -5\)$/],
   ['gradeClass 101', () => sugar.gradeClass(101), /^transmittancePct must be a number from 0 to 100 \(got 101\)$/],
   ['gradeClass -0.1', () => sugar.gradeClass(-0.1), /^transmittancePct /],
   ['gradeClass NaN', () => sugar.gradeClass(Number.NaN), /^transmittancePct .*got NaN/],
@@ -67,8 +75,44 @@ const cases: Case[] = [
   ['formatMoney bad currency', () => sugar.formatMoney(100, 'dollars'), /^currency must be a three-letter ISO 4217 code/],
 ];
 
+// Where each accepted range comes from, named beside the check.
+const RANGE_SOURCES: Record<string, string> = {
+  densityFromBrix: 'CRC Handbook sucrose table, 0–85 %, after NBS Circular C440, 1942',
+  icumsaSucroseDensity20C: 'CRC Handbook sucrose table, 0–85 %, after NBS Circular C440, 1942',
+  sugarKg: 'CRC Handbook sucrose table, 0–85 %, after NBS Circular C440, 1942',
+  sapToSyrupRatio: 'rule of 86, OSU Extension Bulletin 856, 2006; sap below syrup',
+  syrupLitres: 'mass balance on sugar, CRC Handbook / NBS C440, 1942: sap below syrup',
+  waterToEvaporateL: 'mass balance on sugar, CRC Handbook / NBS C440, 1942: sap below syrup',
+  boilHours: 'rated evaporation above 0: Farming Magazine, “Boiling it down”, year not verified',
+  standardPressureKPa: 'ASHRAE Handbook – Fundamentals, 2017: troposphere',
+  saturationTemperatureK: 'IAPWS-IF97 region 4, 2007: triple to critical point',
+  saturationPressureKPa: 'IAPWS-IF97 region 4, 2007: triple to critical point',
+  waterBoilingPointC: 'ASHRAE 2017 / IAPWS-IF97 ranges',
+  boilingPointElevationC: 'Starzak & Peacock, Zuckerindustrie, 1997; CRC table range',
+  sucroseWaterActivity: 'Starzak & Peacock, Zuckerindustrie, 1997',
+  drawOffTargetC: 'Starzak & Peacock, 1997; IAPWS-IF97',
+  hydrometerReadingBrix: 'Vermont density chart, year not verified: 50 °F to boiling, finished syrup',
+  gradeClass: 'USDA AMS grade standard, 2015: %Tc 0–100',
+  spoilageDeadline: 'co-op settings; common practice',
+  spoilageState: 'co-op settings; common practice',
+  allocate: 'Hamilton’s method, Balinski & Young, 1982',
+  allocateRun: 'Hamilton’s method, Balinski & Young, 1982',
+  litresToGallons: 'NIST SP 811, 2008',
+  celsiusToFahrenheit: 'NIST SP 811, 2008',
+  formatVolume: 'NIST SP 811, 2008',
+  formatMass: 'NIST SP 811, 2008',
+  formatTemperature: 'NIST SP 811, 2008: absolute zero',
+  formatBrix: 'CRC Handbook sucrose table, 0–85 %, after NBS Circular C440, 1942',
+  formatMoney: 'ISO 4217:2015',
+};
+const named = cases.map(([label, call, message]) => {
+  const source = RANGE_SOURCES[label.split(' ')[0]];
+  if (!source) throw new Error(`no source named for ${label}`);
+  return [`${label} (${source})`, call, message] as Case;
+});
+
 describe('invalid arguments throw a RangeError naming the argument and its range', () => {
-  it.each(cases)('%s', (_label, call, message) => {
+  it.each(named)('%s', (_label, call, message) => {
     expect(call).toThrow(RangeError);
     expect(call).toThrow(message);
   });
