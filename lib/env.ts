@@ -9,6 +9,16 @@ const EnvSchema = z.object({
   SMTP_PORT: z.coerce.number().int().positive().default(1025),
   MAIL_FROM: z.string().default('Brixhouse <no-reply@brixhouse.example>'),
   NEXTAUTH_SECRET: z.string().min(16).default('brixhouse-local-development-secret'),
+  /** Object store for photos: any S3-compatible service; the scripts start a local fake. */
+  S3_ENDPOINT: z.string().url().default('http://127.0.0.1:9200'),
+  S3_BUCKET: z.string().min(3).default('brixhouse'),
+  S3_REGION: z.string().default('us-east-1'),
+  S3_ACCESS_KEY_ID: z.string().default('S3RVER'),
+  S3_SECRET_ACCESS_KEY: z.string().default('S3RVER'),
+  S3_FORCE_PATH_STYLE: z
+    .enum(['true', 'false', '1', '0'])
+    .default('true')
+    .transform((v) => v === 'true' || v === '1'),
 });
 
 export type Env = z.infer<typeof EnvSchema>;

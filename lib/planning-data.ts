@@ -1,7 +1,9 @@
 import 'server-only';
-import { Op } from 'sequelize';
+import { Op, QueryTypes } from 'sequelize';
 import { db } from '@/db/models';
 import { planBoiling, type BoilPlan, type WaitingLot } from '@/lib/planning';
+import { collectionStart } from '@/lib/deliveries/rules';
+import { spoilageDeadline } from '@/lib/sugar';
 
 export interface PlanningDto extends BoilPlan {
   evaporatorId: string | null;
@@ -9,11 +11,40 @@ export interface PlanningDto extends BoilPlan {
 }
 
 /**
- * Accepted sap not yet boiled. The co-op records no drop-offs yet, so nothing waits; the
- * drop-off desk feeds this list.
+ * Accepted sap not yet boiled: every accepted lot of the open season (rejected lots never
+ * count), each with its spoilage deadline from the co-op's shelf-life settings.
  */
-async function waitingLots(_cooperativeId: string): Promise<WaitingLot[]> {
-  return [];
+export async function waitingLots(cooperativeId: string): Promise<WaitingLot[]> {
+  const rows = await db().sequelize.query<{
+    volumeL: number;
+    brix: number;
+    collectedOn: string;
+    sapTempC: number;
+    timeZone: string;
+    shelfDays: number;
+    warmAboveC: number;
+    warmShelfDays: number;
+  }>(
+    `SELECT d.volume_l AS "volumeL", d.brix::float8 AS brix, d.collected_on AS "collectedOn", d.sap_temp_c AS "sapTempC",
+            c.time_zone AS "timeZone", c.shelf_days AS "shelfDays", c.warm_above_c AS "warmAboveC", c.warm_shelf_days AS "warmShelfDays"
+       FROM sap_deliveries d
+       JOIN seasons s ON s.id = d.season_id AND s.status = 'open'
+       JOIN cooperatives c ON c.id = d.cooperative_id
+      WHERE d.cooperative_id = :cooperativeId AND d.status = 'accepted'`,
+    { replacements: { cooperativeId }, type: QueryTypes.SELECT },
+  );
+  return rows
+    .filter((r) => r.brix > 0)
+    .map((r) => ({
+      litres: r.volumeL,
+      brix: r.brix,
+      deadline: spoilageDeadline(collectionStart(r.collectedOn, r.timeZone), {
+        sapTempC: r.sapTempC,
+        shelfDays: r.shelfDays,
+        warmAboveC: r.warmAboveC,
+        warmShelfDays: Math.min(r.warmShelfDays, r.shelfDays),
+      }),
+    }));
 }
 
 /** The planning strip of the Boil calendar for a co-op's first evaporator. */

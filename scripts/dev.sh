@@ -10,6 +10,10 @@ export DATABASE_URL=${DATABASE_URL:-$(database_url brixhouse_dev)}
 export SMTP_PORT=${SMTP_PORT:-1025}
 export APP_URL=${APP_URL:-http://127.0.0.1:$PORT} NEXTAUTH_URL=${APP_URL:-http://127.0.0.1:$PORT}
 bash scripts/mail.sh start maildev "$SMTP_PORT" "${MAIL_WEB_PORT:-1080}"
+if [ -z "${S3_ENDPOINT:-}" ]; then
+  bash scripts/s3.sh start s3 "${S3_PORT:-9200}" "$S3_BUCKET"
+  export S3_ENDPOINT=http://127.0.0.1:${S3_PORT:-9200}
+fi
 npm run --silent db:migrate -- --quiet
 npm run --silent db:seed
 exec node --import tsx server.ts

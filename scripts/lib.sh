@@ -5,6 +5,8 @@ export TMPDIR="$ROOT/.tmp"
 mkdir -p "$DATA_DIR" "$TMPDIR"
 
 PG_PORT=${PG_PORT:-5544}
+# The object store: a real S3-compatible one when S3_ENDPOINT is set, else the local fake.
+export S3_BUCKET=${S3_BUCKET:-brixhouse}
 PG_USER=brixhouse
 PG_PASSWORD=brixhouse
 

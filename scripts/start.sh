@@ -22,6 +22,13 @@ fi
 log "Starting maildev (SMTP 127.0.0.1:$SMTP_PORT, inbox http://127.0.0.1:$MAIL_WEB_PORT)"
 bash scripts/mail.sh start maildev "$SMTP_PORT" "$MAIL_WEB_PORT"
 
+S3_PORT=${S3_PORT:-9200}
+if [ -z "${S3_ENDPOINT:-}" ]; then
+  log "Starting the local object store (http://127.0.0.1:$S3_PORT)"
+  bash scripts/s3.sh start s3 "$S3_PORT" "$S3_BUCKET"
+  export S3_ENDPOINT=http://127.0.0.1:$S3_PORT
+fi
+
 log "Migrating the database"
 npm run --silent db:migrate -- --quiet
 npm run --silent db:seed

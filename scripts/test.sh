@@ -26,6 +26,7 @@ source scripts/test-env.sh
 cleanup() {
   stop_bg test-server
   stop_bg maildev-test
+  stop_bg s3-test
   [ "$PG_WAS_RUNNING" = 1 ] || bash scripts/db.sh stop > /dev/null 2>&1 || true
 }
 trap cleanup EXIT
@@ -33,6 +34,10 @@ trap cleanup EXIT
 log "Starting maildev for the tests (SMTP $SMTP_PORT, inbox $MAIL_WEB_PORT)"
 stop_bg maildev-test
 bash scripts/mail.sh start maildev-test "$SMTP_PORT" "$MAIL_WEB_PORT"
+log "Starting the object store for the tests (http://127.0.0.1:$S3_PORT)"
+stop_bg s3-test
+rm -rf "$DATA_DIR/s3-test"
+bash scripts/s3.sh start s3-test "$S3_PORT" "$S3_BUCKET"
 npm run --silent db:migrate -- --quiet
 npm run --silent db:seed
 

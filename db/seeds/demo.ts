@@ -2,6 +2,7 @@ import bcrypt from 'bcryptjs';
 import { DateTime } from 'luxon';
 import type { Transaction } from 'sequelize';
 import { db } from '@/db/models';
+import { seedDeliveries } from './deliveries';
 
 export const DEMO_PASSWORD = 'syrup-season';
 export const DEMO_TIME_ZONE = 'America/New_York';
@@ -78,7 +79,7 @@ export async function seedDemo({ now = new Date() }: { now?: Date } = {}) {
       },
       { transaction },
     );
-    await m.Season.create(
+    const last = await m.Season.create(
       {
         cooperativeId,
         label: `Season ${start.year - 1}`,
@@ -134,6 +135,7 @@ export async function seedDemo({ now = new Date() }: { now?: Date } = {}) {
       });
     }
     await m.BoilSlot.bulkCreate(slots, { transaction });
+    await seedDeliveries({ transaction, cooperativeId, zone: DEMO_TIME_ZONE, now, openSeason: open, lastSeason: last, households, staffIds: staff.filter((s) => s.role === 'sugarmaker').map((s) => s.id) });
 
     return { cooperativeId, seasonId: open.id, evaporatorId: evaporator.id };
   });

@@ -1,0 +1,455 @@
+import 'server-only';
+import { DateTime } from 'luxon';
+import { DatabaseError, QueryTypes, UniqueConstraintError, type Transaction } from 'sequelize';
+import { db } from '@/db/models';
+import { ApiError } from '@/lib/api/errors';
+import type { SessionUser } from '@/lib/auth/session';
+import { recordChange } from '@/lib/events';
+import { isCoopKey, photoExists } from '@/lib/storage';
+import { sugarKg, type UnitSystem } from '@/lib/sugar';
+import { localDay, toZonedIso } from '@/lib/time';
+import { queueRejectionMail, type MailCoop } from './mail';
+import { collectionStart, decide, recommend, type ShelfSettings } from './rules';
+import { LIMITS, type DeliveryInput, type DeliveryPatch, type DeliveryQuery } from './schema';
+import type { DeliveryDetailDto, DeliveryDto, DeliveryRevisionDto } from './types';
+
+/** Who acts, for which co-op, and (optionally) the transaction to work in. */
+export interface DeliveryContext {
+  actor: Pick<SessionUser, 'id' | 'role' | 'householdId' | 'name'>;
+  cooperativeId: string;
+  transaction?: Transaction;
+}
+
+const STAFF = new Set(['coordinator', 'sugarmaker']);
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+function fail(status: number, code: string, message: string, fields?: Record<string, string>): never {
+  throw new ApiError(status, message, fields, { code });
+}
+
+function requireStaff(ctx: DeliveryContext, what: string) {
+  if (!STAFF.has(ctx.actor.role)) fail(403, 'forbidden', `Only a sugarmaker or a coordinator can ${what}.`);
+}
+
+interface CoopRow extends ShelfSettings {
+  id: string;
+  name: string;
+  timeZone: string;
+  unitSystem: UnitSystem;
+  seasonId: string | null;
+}
+
+async function coopAndOpenSeason(cooperativeId: string, transaction?: Transaction): Promise<CoopRow> {
+  const [row] = await db().sequelize.query<CoopRow>(
+    `SELECT c.id, c.name, c.time_zone AS "timeZone", c.unit_system AS "unitSystem", c.shelf_days AS "shelfDays",
+            c.warm_above_c AS "warmAboveC", c.warm_shelf_days AS "warmShelfDays", s.id AS "seasonId"
+       FROM cooperatives c LEFT JOIN seasons s ON s.cooperative_id = c.id AND s.status = 'open'
+      WHERE c.id = :cooperativeId`,
+    { replacements: { cooperativeId }, type: QueryTypes.SELECT, transaction },
+  );
+  if (!row) fail(404, 'not_found', 'Your cooperative was not found.');
+  return row;
+}
+
+async function householdName(cooperativeId: string, householdId: string, transaction?: Transaction): Promise<string | null> {
+  const [row] = await db().sequelize.query<{ name: string }>('SELECT name FROM households WHERE id = :householdId AND cooperative_id = :cooperativeId', {
+    replacements: { householdId, cooperativeId },
+    type: QueryTypes.SELECT,
+    transaction,
+  });
+  return row?.name ?? null;
+}
+
+const roundL = (v: number) => Math.round(v * 1000) / 1000;
+const roundBrix = (v: number) => Math.round(v * 10) / 10;
+
+function checkCollectedOn(collectedOn: string, receivedDay: string) {
+  if (collectedOn > receivedDay) fail(422, 'invalid_input', 'The sap cannot have been collected after it arrived.', { collectedOn: 'The collection day cannot be after the day the lot arrived.' });
+  const oldest = DateTime.fromISO(receivedDay).minus({ days: LIMITS.maxCollectedDaysAgo }).toISODate()!;
+  if (collectedOn < oldest) fail(422, 'invalid_input', 'That collection day is too long ago.', { collectedOn: `Sap collected more than ${LIMITS.maxCollectedDaysAgo} days before it arrived cannot be logged.` });
+}
+
+async function checkPhotoKey(cooperativeId: string, key: string | null | undefined) {
+  if (!key) return;
+  if (!isCoopKey(cooperativeId, key) || !(await photoExists(key))) {
+    fail(422, 'invalid_input', 'That photo was not found; take or choose it again.', { photoKey: 'That photo was not found; take or choose it again.' });
+  }
+}
+
+/** Database refusals a person can act on, as field errors; anything else is rethrown. */
+function mapConstraint(err: unknown): never {
+  const constraint = (err as { parent?: { constraint?: string } })?.parent?.constraint ?? (err as { original?: { constraint?: string } })?.original?.constraint;
+  if (constraint && /boiled/.test(constraint)) {
+    fail(409, 'lot_already_boiled', 'Part of this lot has already been boiled: its volume cannot go below what was boiled, and it can no longer be rejected.', { volumeL: 'Less than what has already been boiled.' });
+  }
+  const fields: Record<string, [string, string]> = {
+    sap_deliveries_volume: ['volumeL', 'The volume must be more than zero.'],
+    sap_deliveries_brix: ['brix', `°Brix is between 0 and ${LIMITS.maxBrix}.`],
+    sap_deliveries_sap_temp: ['sapTempC', 'That sap temperature is out of range.'],
+    sap_deliveries_collected_before_received: ['collectedOn', 'The collection day cannot be after the day the lot arrived.'],
+    sap_deliveries_mix: ['mix', 'The sugarbush mix must add up to 100 %.'],
+    sap_deliveries_rejected_has_reason: ['reason', 'A rejected lot needs a reason.'],
+    sap_deliveries_override_has_reason: ['reason', 'Going against the recommendation needs a reason.'],
+    sap_deliveries_household_fk: ['householdId', 'Choose a household of this cooperative.'],
+  };
+  if (constraint && fields[constraint]) {
+    const [field, message] = fields[constraint];
+    fail(422, 'invalid_input', message, { [field]: message });
+  }
+  throw err;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Reading
+
+/** The co-op-local ISO 8601 time of a timestamptz column, formatted by PostgreSQL once per row. */
+const zonedIso = (col: string, zone: string) =>
+  `(to_char(${col} AT TIME ZONE ${zone}, 'YYYY-MM-DD"T"HH24:MI:SS.MS') || (SELECT CASE WHEN o < 0 THEN '-' ELSE '+' END || lpad((abs(o) / 60)::text, 2, '0') || ':' || lpad((abs(o) % 60)::text, 2, '0') FROM (SELECT (extract(epoch FROM (${col} AT TIME ZONE ${zone}) - (${col} AT TIME ZONE 'UTC')) / 60)::int AS o) x))`;
+
+const LOT_COLUMNS = `
+  d.id, d.season_id AS "seasonId", d.household_id AS "householdId", h.name AS "householdName",
+  ${zonedIso('d.received_at', 'c.time_zone')} AS "receivedAt", d.collected_on AS "collectedOn",
+  d.volume_l AS "volumeL", d.brix::float8 AS brix, d.sap_temp_c AS "sapTempC", d.clarity, d.contamination,
+  d.sugar_maple_pct AS "sugarMaplePct", d.red_maple_pct AS "redMaplePct", d.other_pct AS "otherPct",
+  d.recommendation, d.status, d.reason, d.photo_key AS "photoKey", d.note, d.logged_by AS "loggedBy", u.name AS "loggedByName"`;
+
+const LOT_FROM = `
+  FROM sap_deliveries d
+  JOIN cooperatives c ON c.id = d.cooperative_id
+  JOIN households h ON h.id = d.household_id
+  LEFT JOIN users u ON u.id = d.logged_by`;
+
+interface LotRow extends Omit<DeliveryDto, 'sugarKg' | 'mix' | 'revisions'> {
+  sugarMaplePct: number | null;
+  redMaplePct: number | null;
+  otherPct: number | null;
+}
+
+function toDto<R extends LotRow>(r: R): Omit<R, 'sugarMaplePct' | 'redMaplePct' | 'otherPct'> & Pick<DeliveryDto, 'sugarKg' | 'mix'> {
+  const { sugarMaplePct, redMaplePct, otherPct, ...rest } = r;
+  return {
+    ...rest,
+    sugarKg: sugarKg(r.volumeL, r.brix),
+    mix: sugarMaplePct === null ? null : { sugarMaple: sugarMaplePct, redMaple: redMaplePct!, other: otherPct! },
+  };
+}
+
+/**
+ * `GET /api/deliveries`: one SQL query; a member sees its own household's lots only. Days are
+ * the co-op's calendar days, inclusive.
+ */
+export async function listDeliveries(ctx: DeliveryContext, query: DeliveryQuery): Promise<DeliveryDto[]> {
+  const member = !STAFF.has(ctx.actor.role);
+  if (member && !ctx.actor.householdId) return [];
+  const householdId = member ? ctx.actor.householdId : query.householdId;
+  const where = ['d.cooperative_id = :cooperativeId'];
+  if (householdId) where.push('d.household_id = :householdId');
+  if (query.status) where.push('d.status = :status');
+  if (query.seasonId) where.push('d.season_id = :seasonId');
+  if (query.from) where.push(`d.received_at >= (:from::date)::timestamp AT TIME ZONE c.time_zone`);
+  if (query.to) where.push(`d.received_at < ((:to::date) + 1)::timestamp AT TIME ZONE c.time_zone`);
+  const rows = await db().sequelize.query<LotRow & { revisions: number }>(
+    `SELECT ${LOT_COLUMNS}, (SELECT count(*) FROM delivery_revisions r WHERE r.delivery_id = d.id)::int AS revisions
+       ${LOT_FROM}
+      WHERE ${where.join(' AND ')}
+      ORDER BY d.received_at DESC, d.id`,
+    {
+      replacements: { cooperativeId: ctx.cooperativeId, householdId, status: query.status, seasonId: query.seasonId, from: query.from, to: query.to },
+      type: QueryTypes.SELECT,
+      transaction: ctx.transaction,
+    },
+  );
+  return rows.map(toDto);
+}
+
+/** `GET /api/deliveries/:id`: the lot with its revisions and deadline; another household's lot is 404 to a member. */
+export async function getDelivery(ctx: DeliveryContext, id: string): Promise<DeliveryDetailDto> {
+  if (!UUID.test(id)) fail(404, 'not_found', 'That drop-off was not found.');
+  const [row] = await db().sequelize.query<
+    LotRow & { revisions: DeliveryRevisionDto[] | null; timeZone: string; shelfDays: number; warmAboveC: number; warmShelfDays: number }
+  >(
+    `SELECT ${LOT_COLUMNS}, c.time_zone AS "timeZone", c.shelf_days AS "shelfDays", c.warm_above_c AS "warmAboveC", c.warm_shelf_days AS "warmShelfDays",
+            (SELECT json_agg(json_build_object('id', r.id, 'changedAt', ${zonedIso('r.changed_at', 'c.time_zone')}, 'changedBy', r.changed_by,
+                     'changedByName', ru.name, 'reason', r.reason, 'before', r.before, 'after', r.after) ORDER BY r.changed_at, r.id)
+               FROM delivery_revisions r LEFT JOIN users ru ON ru.id = r.changed_by WHERE r.delivery_id = d.id) AS revisions
+       ${LOT_FROM}
+      WHERE d.id = :id AND d.cooperative_id = :cooperativeId`,
+    { replacements: { id, cooperativeId: ctx.cooperativeId }, type: QueryTypes.SELECT, transaction: ctx.transaction },
+  );
+  if (!row || (!STAFF.has(ctx.actor.role) && row.householdId !== ctx.actor.householdId)) fail(404, 'not_found', 'That drop-off was not found.');
+  const { timeZone, shelfDays, warmAboveC, warmShelfDays, revisions, ...lot } = row;
+  const rec = recommend(
+    { clarity: lot.clarity, contamination: lot.contamination, sapTempC: lot.sapTempC, collectedAt: collectionStart(lot.collectedOn, timeZone), receivedAt: new Date(lot.receivedAt) },
+    { shelfDays, warmAboveC, warmShelfDays },
+  );
+  return { ...toDto(lot), revisions: revisions ?? [], deadline: toZonedIso(rec.deadline, timeZone) };
+}
+
+// ---------------------------------------------------------------------------------------------
+// Writing
+
+const isIdempotencyClash = (err: unknown) =>
+  err instanceof UniqueConstraintError && (err.parent as { constraint?: string } | undefined)?.constraint === 'sap_deliveries_idempotency';
+
+async function findByKey(cooperativeId: string, key: string): Promise<string | null> {
+  const [row] = await db().sequelize.query<{ id: string }>('SELECT id FROM sap_deliveries WHERE cooperative_id = :cooperativeId AND idempotency_key = :key', {
+    replacements: { cooperativeId, key },
+    type: QueryTypes.SELECT,
+  });
+  return row?.id ?? null;
+}
+
+/**
+ * `POST /api/deliveries`: logs a lot in one transaction (row, change event, rejection e-mail).
+ * A repeated idempotency key, also from a concurrent post, answers the first lot with
+ * `created: false`.
+ */
+export async function createDelivery(ctx: DeliveryContext, input: DeliveryInput, now = new Date()): Promise<{ lot: DeliveryDto; created: boolean }> {
+  requireStaff(ctx, 'log a drop-off');
+  const existing = await findByKey(ctx.cooperativeId, input.idempotencyKey);
+  if (existing) return { lot: await lotForAnswer(ctx, existing), created: false };
+  try {
+    const lot = await db().sequelize.transaction((transaction) => insertLot({ ...ctx, transaction }, input, now));
+    return { lot, created: true };
+  } catch (err) {
+    if (isIdempotencyClash(err)) {
+      const id = await findByKey(ctx.cooperativeId, input.idempotencyKey);
+      if (id) return { lot: await lotForAnswer(ctx, id), created: false };
+    }
+    if (err instanceof DatabaseError) mapConstraint(err);
+    throw err;
+  }
+}
+
+async function lotForAnswer(ctx: DeliveryContext, id: string): Promise<DeliveryDto> {
+  const { deadline: _deadline, revisions, ...lot } = await getDelivery({ ...ctx, transaction: undefined }, id);
+  return { ...lot, revisions: revisions.length };
+}
+
+async function insertLot(ctx: DeliveryContext & { transaction: Transaction }, input: DeliveryInput, now: Date): Promise<DeliveryDto> {
+  const { transaction, cooperativeId } = ctx;
+  const coop = await coopAndOpenSeason(cooperativeId, transaction);
+  if (!coop.seasonId) fail(422, 'no_open_season', 'There is no open season to log sap into. A coordinator opens one in Settings.');
+  const name = UUID.test(input.householdId) ? await householdName(cooperativeId, input.householdId, transaction) : null;
+  if (!name) fail(422, 'invalid_input', 'Choose a household of this cooperative.', { householdId: 'Choose a household of this cooperative.' });
+  checkCollectedOn(input.collectedOn, localDay(now, coop.timeZone));
+  await checkPhotoKey(cooperativeId, input.photoKey);
+
+  const rec = recommend(
+    { clarity: input.clarity, contamination: input.contamination, sapTempC: input.sapTempC, collectedAt: collectionStart(input.collectedOn, coop.timeZone), receivedAt: now },
+    coop,
+  );
+  const decided = decide(rec, input.decision, input.reason);
+  if ('needsReason' in decided) {
+    const message = input.decision === 'reject' || (!input.decision && rec.decision === 'reject') ? 'Say why the lot is rejected.' : 'Say why you go against the recommendation.';
+    fail(422, 'reason_required', message, { reason: message });
+  }
+
+  const { SapDelivery } = db();
+  const row = await SapDelivery.create(
+    {
+      cooperativeId,
+      seasonId: coop.seasonId,
+      householdId: input.householdId,
+      receivedAt: now,
+      collectedOn: input.collectedOn,
+      volumeL: roundL(input.volumeL),
+      brix: roundBrix(input.brix),
+      sapTempC: input.sapTempC,
+      clarity: input.clarity,
+      contamination: input.contamination,
+      sugarMaplePct: input.mix?.sugarMaple ?? null,
+      redMaplePct: input.mix?.redMaple ?? null,
+      otherPct: input.mix?.other ?? null,
+      recommendation: rec.decision,
+      status: decided.status,
+      reason: decided.reason,
+      photoKey: input.photoKey ?? null,
+      note: input.note?.trim() || null,
+      loggedBy: ctx.actor.id,
+      idempotencyKey: input.idempotencyKey,
+    },
+    { transaction },
+  );
+  await recordChange(ctx, { type: decided.status === 'accepted' ? 'delivery.accepted' : 'delivery.rejected', deliveryId: row.id, householdId: row.householdId });
+  if (decided.status === 'rejected') {
+    await queueRejectionMail({ ...lotForMail(row), reason: decided.reason! }, coop satisfies MailCoop, transaction);
+  }
+  return {
+    id: row.id,
+    seasonId: row.seasonId,
+    householdId: row.householdId,
+    householdName: name,
+    receivedAt: toZonedIso(row.receivedAt, coop.timeZone),
+    collectedOn: row.collectedOn,
+    volumeL: row.volumeL,
+    brix: row.brix,
+    sugarKg: sugarKg(row.volumeL, row.brix),
+    sapTempC: row.sapTempC,
+    clarity: row.clarity,
+    contamination: row.contamination,
+    mix: input.mix ?? null,
+    recommendation: row.recommendation,
+    status: row.status,
+    reason: row.reason,
+    photoKey: row.photoKey,
+    note: row.note,
+    loggedBy: row.loggedBy,
+    loggedByName: ctx.actor.name ?? null,
+    revisions: 0,
+  };
+}
+
+function lotForMail(row: { id: string; householdId: string; receivedAt: Date; collectedOn: string; volumeL: number; brix: number; sapTempC: number }) {
+  return { id: row.id, householdId: row.householdId, receivedAt: row.receivedAt, collectedOn: row.collectedOn, volumeL: row.volumeL, brix: row.brix, sapTempC: row.sapTempC };
+}
+
+/** The lot's fields as the API names them, for a revision's before and after. */
+type Snapshot = {
+  householdId: string;
+  volumeL: number;
+  brix: number;
+  sapTempC: number;
+  collectedOn: string;
+  clarity: string;
+  contamination: string;
+  mix: { sugarMaple: number; redMaple: number; other: number } | null;
+  recommendation: string;
+  status: string;
+  reason: string | null;
+  photoKey: string | null;
+  note: string | null;
+};
+
+/**
+ * `PATCH /api/deliveries/:id`: a correction with its reason. Writes exactly one revision with
+ * the changed fields before and after, in the same transaction as the change; a new volume or
+ * °Brix changes the lot's sugar everywhere, since sugar is always computed from them.
+ */
+export async function correctDelivery(ctx: DeliveryContext, id: string, patch: DeliveryPatch): Promise<DeliveryDetailDto> {
+  requireStaff(ctx, 'correct a drop-off');
+  if (!UUID.test(id)) fail(404, 'not_found', 'That drop-off was not found.');
+  try {
+    await db().sequelize.transaction((transaction) => applyCorrection({ ...ctx, transaction }, id, patch));
+  } catch (err) {
+    if (err instanceof DatabaseError) mapConstraint(err);
+    throw err;
+  }
+  return getDelivery({ ...ctx, transaction: undefined }, id);
+}
+
+async function applyCorrection(ctx: DeliveryContext & { transaction: Transaction }, id: string, patch: DeliveryPatch) {
+  const { transaction, cooperativeId } = ctx;
+  const { SapDelivery, DeliveryRevision } = db();
+  const lot = await SapDelivery.findOne({ where: { id, cooperativeId }, transaction, lock: transaction.LOCK.UPDATE });
+  if (!lot) fail(404, 'not_found', 'That drop-off was not found.');
+  const coop = await coopAndOpenSeason(cooperativeId, transaction);
+
+  const before: Snapshot = snapshot(lot);
+  const next: Snapshot = { ...before };
+  if (patch.householdId !== undefined && patch.householdId !== lot.householdId) {
+    if (!(await householdName(cooperativeId, patch.householdId, transaction))) {
+      fail(422, 'invalid_input', 'Choose a household of this cooperative.', { householdId: 'Choose a household of this cooperative.' });
+    }
+    next.householdId = patch.householdId;
+  }
+  if (patch.volumeL !== undefined) next.volumeL = roundL(patch.volumeL);
+  if (patch.brix !== undefined) next.brix = roundBrix(patch.brix);
+  if (patch.sapTempC !== undefined) next.sapTempC = patch.sapTempC;
+  if (patch.collectedOn !== undefined) {
+    checkCollectedOn(patch.collectedOn, localDay(lot.receivedAt, coop.timeZone));
+    next.collectedOn = patch.collectedOn;
+  }
+  if (patch.clarity !== undefined) next.clarity = patch.clarity;
+  if (patch.contamination !== undefined) next.contamination = patch.contamination;
+  if (patch.mix !== undefined) next.mix = patch.mix;
+  if (patch.note !== undefined) next.note = patch.note?.trim() || null;
+  if (patch.photoKey !== undefined) {
+    if (patch.photoKey !== lot.photoKey) await checkPhotoKey(cooperativeId, patch.photoKey);
+    next.photoKey = patch.photoKey ?? null;
+  }
+
+  const rec = recommend(
+    {
+      clarity: next.clarity as DeliveryInput['clarity'],
+      contamination: next.contamination as DeliveryInput['contamination'],
+      sapTempC: next.sapTempC,
+      collectedAt: collectionStart(next.collectedOn, coop.timeZone),
+      receivedAt: lot.receivedAt,
+    },
+    coop,
+  );
+  next.recommendation = rec.decision;
+  next.status = patch.status ?? before.status;
+  let reason = patch.statusReason !== undefined ? patch.statusReason?.trim() || null : before.reason;
+  if (next.status === 'accepted' && before.status === 'rejected' && patch.statusReason === undefined) reason = null;
+  if (!reason && (next.status === 'rejected' || rec.decision === 'reject')) {
+    reason = next.status === 'rejected' && rec.decision === 'reject' && rec.text ? rec.text : patch.reason.trim();
+  }
+  next.reason = reason;
+
+  const changed = (Object.keys(next) as (keyof Snapshot)[]).filter((k) => JSON.stringify(next[k]) !== JSON.stringify(before[k]));
+  if (!changed.length) fail(422, 'nothing_changed', 'Nothing to correct: every field is as it was.');
+
+  await lot.update(
+    {
+      householdId: next.householdId,
+      volumeL: next.volumeL,
+      brix: next.brix,
+      sapTempC: next.sapTempC,
+      collectedOn: next.collectedOn,
+      clarity: next.clarity as DeliveryInput['clarity'],
+      contamination: next.contamination as DeliveryInput['contamination'],
+      sugarMaplePct: next.mix?.sugarMaple ?? null,
+      redMaplePct: next.mix?.redMaple ?? null,
+      otherPct: next.mix?.other ?? null,
+      recommendation: rec.decision,
+      status: next.status as 'accepted' | 'rejected',
+      reason: next.reason,
+      photoKey: next.photoKey,
+      note: next.note,
+    },
+    { transaction },
+  );
+  const revision = await DeliveryRevision.create(
+    {
+      cooperativeId,
+      deliveryId: lot.id,
+      changedBy: ctx.actor.id,
+      reason: patch.reason.trim(),
+      before: Object.fromEntries(changed.map((k) => [k, before[k]])),
+      after: Object.fromEntries(changed.map((k) => [k, next[k]])),
+    },
+    { transaction },
+  );
+  await recordChange(ctx, { type: 'delivery.corrected', deliveryId: lot.id, householdId: next.householdId, revisionId: revision.id });
+  if (next.status === 'rejected' && (before.status !== 'rejected' || before.householdId !== next.householdId)) {
+    await queueRejectionMail({ ...lotForMail(lot), reason: next.reason! }, coop satisfies MailCoop, transaction);
+  }
+}
+
+function snapshot(lot: InstanceType<ReturnType<typeof db>['SapDelivery']>): Snapshot {
+  return {
+    householdId: lot.householdId,
+    volumeL: lot.volumeL,
+    brix: lot.brix,
+    sapTempC: lot.sapTempC,
+    collectedOn: lot.collectedOn,
+    clarity: lot.clarity,
+    contamination: lot.contamination,
+    mix: lot.sugarMaplePct === null ? null : { sugarMaple: lot.sugarMaplePct, redMaple: lot.redMaplePct!, other: lot.otherPct! },
+    recommendation: lot.recommendation,
+    status: lot.status,
+    reason: lot.reason,
+    photoKey: lot.photoKey,
+    note: lot.note,
+  };
+}
+
+/** Households of the co-op (id and name), for the form's household picker. */
+export async function householdChoices(cooperativeId: string): Promise<{ id: string; name: string }[]> {
+  return db().sequelize.query<{ id: string; name: string }>('SELECT id, name FROM households WHERE cooperative_id = :cooperativeId ORDER BY name', {
+    replacements: { cooperativeId },
+    type: QueryTypes.SELECT,
+  });
+}
