@@ -42,7 +42,7 @@ const PNG = Buffer.from(
 
 async function upload(client: Client, bytes: Uint8Array, name: string, type: string) {
   const form = new FormData();
-  form.append('file', new Blob([bytes], { type }), name);
+  form.append('file', new Blob([new Uint8Array(bytes)], { type }), name);
   const res = await fetch(`${BASE_URL}/api/uploads`, { method: 'POST', headers: { cookie: client.cookieHeader }, body: form });
   return { status: res.status, body: await res.json().catch(() => null) };
 }
