@@ -11,8 +11,9 @@ export interface PlanningDto extends BoilPlan {
 }
 
 /**
- * Accepted sap not yet boiled: every accepted lot of the open season (rejected lots never
- * count), each with its spoilage deadline from the co-op's shelf-life settings.
+ * Accepted sap not yet boiled: the litres of every accepted lot of the open season not yet taken
+ * into a run (rejected lots never count), each with its spoilage deadline from the co-op's
+ * shelf-life settings.
  */
 export async function waitingLots(cooperativeId: string): Promise<WaitingLot[]> {
   const rows = await db().sequelize.query<{
@@ -25,12 +26,12 @@ export async function waitingLots(cooperativeId: string): Promise<WaitingLot[]> 
     warmAboveC: number;
     warmShelfDays: number;
   }>(
-    `SELECT d.volume_l AS "volumeL", d.brix::float8 AS brix, d.collected_on AS "collectedOn", d.sap_temp_c AS "sapTempC",
+    `SELECT d.volume_l - d.litres_boiled AS "volumeL", d.brix::float8 AS brix, d.collected_on AS "collectedOn", d.sap_temp_c AS "sapTempC",
             c.time_zone AS "timeZone", c.shelf_days AS "shelfDays", c.warm_above_c AS "warmAboveC", c.warm_shelf_days AS "warmShelfDays"
        FROM sap_deliveries d
        JOIN seasons s ON s.id = d.season_id AND s.status = 'open'
        JOIN cooperatives c ON c.id = d.cooperative_id
-      WHERE d.cooperative_id = :cooperativeId AND d.status = 'accepted'`,
+      WHERE d.cooperative_id = :cooperativeId AND d.status = 'accepted' AND d.litres_boiled < d.volume_l`,
     { replacements: { cooperativeId }, type: QueryTypes.SELECT },
   );
   return rows

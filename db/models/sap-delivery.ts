@@ -37,6 +37,8 @@ export class SapDelivery extends Model<InferAttributes<SapDelivery>, InferCreati
   declare photoKey: string | null;
   declare note: string | null;
   declare loggedBy: string | null;
+  /** Litres taken into boil runs so far (kept by a trigger on run_inputs; never above the volume). */
+  declare litresBoiled: CreationOptional<number>;
   /** Made once per form fill; unique per co-op so a retried post never makes two lots. */
   declare idempotencyKey: string;
   declare createdAt: CreationOptional<Date>;
@@ -72,6 +74,7 @@ export class SapDelivery extends Model<InferAttributes<SapDelivery>, InferCreati
         photoKey: { type: DataTypes.TEXT, allowNull: true },
         note: { type: DataTypes.TEXT, allowNull: true },
         loggedBy: { type: DataTypes.UUID, allowNull: true },
+        litresBoiled: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0 },
         idempotencyKey: { type: DataTypes.TEXT, allowNull: false },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -79,8 +79,11 @@ async function checkPhotoKey(cooperativeId: string, key: string | null | undefin
 /** Database refusals a person can act on, as field errors; anything else is rethrown. */
 function mapConstraint(err: unknown): never {
   const constraint = (err as { parent?: { constraint?: string } })?.parent?.constraint ?? (err as { original?: { constraint?: string } })?.original?.constraint;
-  if (constraint && /boiled/.test(constraint)) {
-    fail(409, 'lot_already_boiled', 'Part of this lot has already been boiled: its volume cannot go below what was boiled, and it can no longer be rejected.', { volumeL: 'Less than what has already been boiled.' });
+  if (constraint === 'sap_deliveries_not_overdrawn') {
+    fail(409, 'lot_already_boiled', 'Part of this lot has already been boiled: its volume cannot go below the litres taken into runs.', { volumeL: 'Less than what has already been boiled.' });
+  }
+  if (constraint === 'sap_deliveries_boiled_only_accepted') {
+    fail(409, 'lot_already_boiled', 'Part of this lot has already been boiled, so it can no longer be rejected.', { status: 'Part of this lot has already been boiled.' });
   }
   const fields: Record<string, [string, string]> = {
     sap_deliveries_volume: ['volumeL', 'The volume must be more than zero.'],
@@ -111,7 +114,7 @@ const LOT_COLUMNS = `
   ${zonedIso('d.received_at', 'c.time_zone')} AS "receivedAt", d.collected_on AS "collectedOn",
   d.volume_l AS "volumeL", d.brix::float8 AS brix, d.sap_temp_c AS "sapTempC", d.clarity, d.contamination,
   d.sugar_maple_pct AS "sugarMaplePct", d.red_maple_pct AS "redMaplePct", d.other_pct AS "otherPct",
-  d.recommendation, d.status, d.reason, d.photo_key AS "photoKey", d.note, d.logged_by AS "loggedBy", u.name AS "loggedByName"`;
+  d.recommendation, d.status, d.reason, d.photo_key AS "photoKey", d.note, d.logged_by AS "loggedBy", u.name AS "loggedByName", d.litres_boiled AS "litresBoiled"`;
 
 const LOT_FROM = `
   FROM sap_deliveries d
@@ -296,6 +299,7 @@ async function insertLot(ctx: DeliveryContext & { transaction: Transaction }, in
     note: row.note,
     loggedBy: row.loggedBy,
     loggedByName: ctx.actor.name ?? null,
+    litresBoiled: 0,
     revisions: 0,
   };
 }

@@ -24,6 +24,8 @@ export interface DeliveryDto {
   note: string | null;
   loggedBy: string | null;
   loggedByName: string | null;
+  /** Litres already taken into boil runs. */
+  litresBoiled: number;
   /** Number of corrections. */
   revisions: number;
 }

@@ -231,6 +231,20 @@ describe('correcting a drop-off', () => {
     expect((await coordinator.patch(`/api/deliveries/${created.body.id}`, { volumeL: -1, reason: 'typo' })).status).toBe(422);
     expect(await rows('SELECT id FROM delivery_revisions WHERE delivery_id = :id', { id: created.body.id })).toHaveLength(0);
   });
+  it('refuses with 409 to lower a volume below the litres already boiled, or to reject a lot partly boiled', async () => {
+    const created = await sugarmaker.post('/api/deliveries', lot({ volumeL: 200 }));
+    await testDb().query('UPDATE sap_deliveries SET litres_boiled = 150 WHERE id = :id', { replacements: { id: created.body.id } });
+    const lower = await coordinator.patch(`/api/deliveries/${created.body.id}`, { volumeL: 140, reason: 'Meter misread' });
+    expect(lower.status).toBe(409);
+    expect(lower.body.error.code).toBe('lot_already_boiled');
+    expect(lower.body.error.fields.volumeL).toBeTruthy();
+    const reject = await coordinator.patch(`/api/deliveries/${created.body.id}`, { status: 'rejected', reason: 'Found insects afterwards' });
+    expect(reject.status).toBe(409);
+    expect(await rows('SELECT id FROM delivery_revisions WHERE delivery_id = :id', { id: created.body.id })).toHaveLength(0);
+    const [row] = await rows<{ volume_l: number; status: string }>('SELECT volume_l, status FROM sap_deliveries WHERE id = :id', { id: created.body.id });
+    expect(row).toEqual({ volume_l: 200, status: 'accepted' });
+    expect((await coordinator.patch(`/api/deliveries/${created.body.id}`, { volumeL: 160, reason: 'Meter misread' })).status).toBe(200);
+  });
 });
 
 describe('rejected lots', () => {
