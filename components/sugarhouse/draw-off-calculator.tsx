@@ -96,7 +96,7 @@ export function DrawOffCalculator({ elevationM, finishBrix, unitSystem }: DrawOf
               <TR key={brix} className={ours ? 'bg-ember-soft font-semibold' : undefined} aria-current={ours ? 'true' : undefined}>
                 <TD>
                   {formatBrix(brix)}
-                  {ours ? ' (co-op target)' : ''}
+                  {ours ? ' (target)' : ''}
                 </TD>
                 <TD numeric>{formatTemperature(t, unitSystem)}</TD>
                 <TD numeric>{aboveWater(t, water, unitSystem)}</TD>

@@ -27,7 +27,7 @@ export default async function SugarhousePage() {
           {formatBrix(coop.syrupBrix)}
         </p>
       </div>
-      <div className="grid gap-6 lg:grid-cols-2">
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-6 lg:grid-cols-2">
         <Card>
           <CardHeader>
             <CardTitle>Draw-off temperature</CardTitle>
