@@ -8,6 +8,7 @@ import { buttonVariants } from '@/components/ui/button';
 import { formatSlotRange } from '@/lib/time';
 import { formatVolume } from '@/lib/sugar';
 import { Alert } from '@/components/ui/alert';
+import { TodayQueueCard } from '@/components/queue/today-queue-card';
 
 export const metadata: Metadata = { title: 'Today' };
 
@@ -29,6 +30,7 @@ export default async function HomePage() {
         </p>
       </div>
       <div className="grid gap-6 md:grid-cols-2">
+        <TodayQueueCard cooperativeId={user.cooperativeId} householdId={user.role === 'member' ? user.householdId : null} unitSystem={coop.unitSystem} timeZone={coop.timeZone} />
         <Card>
           <CardHeader>
             <CardTitle>{user.role === 'member' ? 'Your next boil slots' : 'Next boil slots'}</CardTitle>

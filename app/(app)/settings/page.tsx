@@ -3,12 +3,17 @@ import { requireRole } from '@/lib/auth/session';
 import { getSettings } from '@/lib/settings';
 import { SettingsForm } from '@/components/settings/settings-form';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
+import { listDisplayLinks } from '@/lib/display/service';
+import { DisplayLinksManager } from '@/components/display/display-links-manager';
 
 export const metadata: Metadata = { title: 'Settings' };
 
 export default async function SettingsPage() {
   const user = await requireRole(['coordinator'], { onFail: 'redirect' });
-  const settings = await getSettings({ cooperativeId: user.cooperativeId });
+  const [settings, displayLinks] = await Promise.all([
+    getSettings({ cooperativeId: user.cooperativeId }),
+    listDisplayLinks({ actor: user, cooperativeId: user.cooperativeId }),
+  ]);
   return (
     <div className="flex flex-col gap-6">
       <div>
@@ -21,6 +26,15 @@ export default async function SettingsPage() {
         </CardHeader>
         <CardBody>
           <SettingsForm initial={settings} />
+        </CardBody>
+      </Card>
+      <Card>
+        <CardHeader>
+          <CardTitle>Sugarhouse display links</CardTitle>
+          <p className="text-slate-muted">A screen in the sugarhouse shows the live Boil queue through one of these links, without anyone signing in on it.</p>
+        </CardHeader>
+        <CardBody>
+          <DisplayLinksManager initial={displayLinks} />
         </CardBody>
       </Card>
     </div>

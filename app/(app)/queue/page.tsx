@@ -1,0 +1,26 @@
+import type { Metadata } from 'next';
+import { requireUser } from '@/lib/auth/session';
+import { getCooperative } from '@/lib/coop';
+import { currentSnapshot } from '@/lib/queue/service';
+import { QueueBoard } from '@/components/queue/queue-board';
+
+export const metadata: Metadata = { title: 'Boil queue' };
+
+export default async function QueuePage() {
+  const user = await requireUser({ onFail: 'redirect' });
+  const [coop, cached] = await Promise.all([getCooperative({ cooperativeId: user.cooperativeId }), currentSnapshot(user.cooperativeId)]);
+  return (
+    <div className="flex flex-col gap-4">
+      <div>
+        <h1 className="text-3xl font-bold">Boil queue</h1>
+        <p className="text-slate-muted">Every accepted lot still to boil, the one that spoils first at the top. It updates by itself.</p>
+      </div>
+      <QueueBoard
+        initial={cached!.snapshot}
+        unitSystem={coop.unitSystem}
+        timeZone={coop.timeZone}
+        ownHouseholdId={user.role === 'member' ? user.householdId : null}
+      />
+    </div>
+  );
+}

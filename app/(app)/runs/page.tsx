@@ -1,0 +1,61 @@
+import type { Metadata } from 'next';
+import { requireRole } from '@/lib/auth/session';
+import { getCooperative, listEvaporators, listSeasons } from '@/lib/coop';
+import { currentSnapshot } from '@/lib/queue/service';
+import { listRuns } from '@/lib/runs/service';
+import { DEFAULT_DRAW_OFF_OFFSET_C, formatBrix } from '@/lib/sugar';
+import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
+import { DrawOffCalculator } from '@/components/sugarhouse/draw-off-calculator';
+import { RunsDesk } from '@/components/runs/runs-desk';
+import { BoilingCautions } from '@/components/runs/boiling-cautions';
+
+export const metadata: Metadata = { title: 'Runs' };
+
+export default async function RunsPage() {
+  const user = await requireRole(['sugarmaker', 'coordinator'], { onFail: 'redirect' });
+  const ctx = { actor: user, cooperativeId: user.cooperativeId };
+  const [coop, seasons, evaporators, cached] = await Promise.all([
+    getCooperative(ctx),
+    listSeasons(ctx),
+    listEvaporators(ctx),
+    currentSnapshot(user.cooperativeId),
+  ]);
+  const open = seasons.find((s) => s.status === 'open');
+  const runs = open ? await listRuns(ctx, { seasonId: open.id }) : [];
+  return (
+    <div className="flex flex-col gap-6">
+      <div>
+        <h1 className="text-3xl font-bold">Runs</h1>
+        <p className="text-slate-muted">
+          Start a run, take sap from the queue, record each draw-off and the fuel, and finish. Syrup is finished to {formatBrix(coop.syrupBrix)}.
+        </p>
+      </div>
+      <BoilingCautions />
+      <div className="grid gap-6 xl:grid-cols-[2fr_1fr]">
+        <RunsDesk
+          initialRuns={runs}
+          initialQueue={cached!.snapshot}
+          evaporators={evaporators}
+          unitSystem={coop.unitSystem}
+          timeZone={coop.timeZone}
+          currency={coop.currency}
+          fuelPriceCents={open?.fuelPriceCents ?? 0}
+          seasonOpen={!!open}
+        />
+        <Card className="self-start">
+          <CardHeader>
+            <CardTitle>Draw-off target</CardTitle>
+          </CardHeader>
+          <CardBody>
+            <p className="text-sm">
+              Syrup reaches density about {coop.unitSystem === 'us' ? '7 °F' : '4 °C'} above the boiling point of water at the same place and
+              hour (common practice). Type today’s barometer reading for a closer target, and confirm every draw-off with a hydrometer or
+              refractometer.
+            </p>
+            <DrawOffCalculator elevationM={coop.elevationM} offsetC={DEFAULT_DRAW_OFF_OFFSET_C} unitSystem={coop.unitSystem} />
+          </CardBody>
+        </Card>
+      </div>
+    </div>
+  );
+}
