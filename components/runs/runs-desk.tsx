@@ -1,7 +1,7 @@
 'use client';
 
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useForm, useWatch } from 'react-hook-form';
 import { Alert } from '@/components/ui/alert';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
@@ -247,10 +247,10 @@ type DrawValues = {
 
 function DrawForm({ run, onRun, unitSystem }: { run: RunDto; onRun: (r: RunDto) => void; unitSystem: UnitSystem }) {
   const [formError, setFormError] = useState<string | null>(null);
-  const { register, handleSubmit, watch, setError, reset, formState } = useForm<DrawValues>({
+  const { register, handleSubmit, control, setError, reset, formState } = useForm<DrawValues>({
     defaultValues: { volume: '', brix: '', transmittancePct: '', temperature: '' },
   });
-  const tc = watch('transmittancePct');
+  const tc = useWatch({ control, name: 'transmittancePct' });
   const tcValue = num(tc);
   const klass = tc !== '' && tcValue >= 0 && tcValue <= 100 ? gradeClass(tcValue) : null;
   const us = unitSystem === 'us';

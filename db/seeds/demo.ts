@@ -3,6 +3,7 @@ import { DateTime } from 'luxon';
 import type { Transaction } from 'sequelize';
 import { db } from '@/db/models';
 import { seedDeliveries } from './deliveries';
+import { seedRuns } from './runs';
 
 export const DEMO_PASSWORD = 'syrup-season';
 export const DEMO_TIME_ZONE = 'America/New_York';
@@ -30,7 +31,7 @@ export const DEMO_SIGN_INS = [
   ...DEMO_HOUSEHOLDS.map((h) => ({ email: h.email, role: 'member' as const })),
 ];
 
-const TABLES = ['delivery_revisions', 'sap_deliveries', 'boil_slots', 'users', 'evaporators', 'seasons', 'households', 'cooperatives'];
+const TABLES = ['display_links', 'fuel_uses', 'syrup_draws', 'run_inputs', 'boil_runs', 'delivery_revisions', 'sap_deliveries', 'boil_slots', 'users', 'evaporators', 'seasons', 'households', 'cooperatives'];
 
 /** Removes every row of the domain tables (tests start each suite from the demo data). */
 export async function truncateAll(transaction?: Transaction) {
@@ -136,6 +137,7 @@ export async function seedDemo({ now = new Date() }: { now?: Date } = {}) {
     }
     await m.BoilSlot.bulkCreate(slots, { transaction });
     await seedDeliveries({ transaction, cooperativeId, zone: DEMO_TIME_ZONE, now, openSeason: open, lastSeason: last, households, staffIds: staff.filter((s) => s.role === 'sugarmaker').map((s) => s.id) });
+    await seedRuns({ transaction, cooperativeId, zone: DEMO_TIME_ZONE, now, elevationM: coop.elevationM, evaporator, openSeason: open, lastSeason: last, staffIds: staff.filter((s) => s.role === 'sugarmaker').map((s) => s.id) });
 
     return { cooperativeId, seasonId: open.id, evaporatorId: evaporator.id };
   });

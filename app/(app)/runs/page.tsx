@@ -3,7 +3,7 @@ import { requireRole } from '@/lib/auth/session';
 import { getCooperative, listEvaporators, listSeasons } from '@/lib/coop';
 import { currentSnapshot } from '@/lib/queue/service';
 import { listRuns } from '@/lib/runs/service';
-import { DEFAULT_DRAW_OFF_OFFSET_C, formatBrix } from '@/lib/sugar';
+import { formatBrix } from '@/lib/sugar';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { DrawOffCalculator } from '@/components/sugarhouse/draw-off-calculator';
 import { RunsDesk } from '@/components/runs/runs-desk';
@@ -48,11 +48,10 @@ export default async function RunsPage() {
           </CardHeader>
           <CardBody>
             <p className="text-sm">
-              Syrup reaches density about {coop.unitSystem === 'us' ? '7 °F' : '4 °C'} above the boiling point of water at the same place and
-              hour (common practice). Type today’s barometer reading for a closer target, and confirm every draw-off with a hydrometer or
-              refractometer.
+              The temperature at which syrup of the co-op’s finishing density boils at the sugarhouse’s elevation, or at today’s barometer
+              reading. Confirm every draw-off with a hydrometer (hot-test corrected) or a refractometer.
             </p>
-            <DrawOffCalculator elevationM={coop.elevationM} offsetC={DEFAULT_DRAW_OFF_OFFSET_C} unitSystem={coop.unitSystem} />
+            <DrawOffCalculator elevationM={coop.elevationM} finishBrix={coop.syrupBrix} unitSystem={coop.unitSystem} />
           </CardBody>
         </Card>
       </div>
