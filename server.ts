@@ -8,6 +8,7 @@ import { decode } from 'next-auth/jwt';
 import { env } from '@/lib/env';
 import { coopRoom, setRealtimeServer } from '@/lib/realtime';
 import { startMailWorker, stopMailQueue } from '@/lib/mail/outbox';
+import { startStatementWorker } from '@/lib/ledger/statement-mail';
 import { getSequelize } from '@/db';
 import { displayRoom, findDisplayLink } from '@/lib/display/tokens';
 import { sendCurrentQueue, startQueueBroadcaster } from '@/lib/queue/live';
@@ -66,6 +67,7 @@ async function main() {
   startQueueBroadcaster(io);
 
   await startMailWorker();
+  await startStatementWorker();
 
   server.listen(e.PORT, hostname, () => {
     console.log(`Brixhouse is serving on http://${hostname}:${e.PORT} (${dev ? 'development' : 'production'})`);

@@ -19,6 +19,12 @@ const EnvSchema = z.object({
     .enum(['true', 'false', '1', '0'])
     .default('true')
     .transform((v) => v === 'true' || v === '1'),
+  // The payment service: its SDK, pointed at the local stand-in unless a host is given.
+  STRIPE_SECRET_KEY: z.string().regex(/^(sk|rk)_(test|live)_\S+$/).default('sk_test_brixhouse_local_only'),
+  STRIPE_WEBHOOK_SECRET: z.string().min(8).default('whsec_brixhouse_local_only'),
+  STRIPE_API_HOST: z.string().optional(),
+  STRIPE_API_PORT: z.coerce.number().int().positive().optional(),
+  STRIPE_API_PROTOCOL: z.enum(['http', 'https']).optional(),
 });
 
 export type Env = z.infer<typeof EnvSchema>;

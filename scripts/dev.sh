@@ -14,6 +14,8 @@ if [ -z "${S3_ENDPOINT:-}" ]; then
   bash scripts/s3.sh start s3 "${S3_PORT:-9200}" "$S3_BUCKET"
   export S3_ENDPOINT=http://127.0.0.1:${S3_PORT:-9200}
 fi
+payment_env "${PAY_PORT:-9400}"
+bash scripts/pay.sh start pay-fake "$PAY_PORT"
 npm run --silent db:migrate -- --quiet
 npm run --silent db:seed
 exec node --import tsx server.ts

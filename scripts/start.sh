@@ -28,6 +28,9 @@ if [ -z "${S3_ENDPOINT:-}" ]; then
   bash scripts/s3.sh start s3 "$S3_PORT" "$S3_BUCKET"
   export S3_ENDPOINT=http://127.0.0.1:$S3_PORT
 fi
+payment_env "${PAY_PORT:-9400}"
+log "Starting the local payment service stand-in (127.0.0.1:$PAY_PORT)"
+bash scripts/pay.sh start pay-fake "$PAY_PORT"
 
 log "Migrating the database"
 npm run --silent db:migrate -- --quiet

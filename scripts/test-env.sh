@@ -13,3 +13,4 @@ export APP_URL=http://127.0.0.1:$E2E_PORT
 export NEXTAUTH_URL=$APP_URL
 export NEXTAUTH_SECRET=brixhouse-test-secret-not-for-production
 export NEXT_DIST_DIR=.next-test
+payment_env "${TEST_PAY_PORT:-9500}"

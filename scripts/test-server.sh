@@ -7,6 +7,7 @@ cd "$ROOT"
 bash scripts/db.sh start > /dev/null
 bash scripts/mail.sh start maildev-test "$SMTP_PORT" "$MAIL_WEB_PORT"
 bash scripts/s3.sh start s3-test "$S3_PORT" "$S3_BUCKET"
+bash scripts/pay.sh start pay-fake-test "$PAY_PORT"
 npm run --silent db:migrate -- --quiet > /dev/null
 [ -d "$NEXT_DIST_DIR" ] || npx next build > "$DATA_DIR/build-test.log" 2>&1
 exec node --import tsx server.ts

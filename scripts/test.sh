@@ -27,6 +27,7 @@ cleanup() {
   stop_bg test-server
   stop_bg maildev-test
   stop_bg s3-test
+  stop_bg pay-fake-test
   [ "$PG_WAS_RUNNING" = 1 ] || bash scripts/db.sh stop > /dev/null 2>&1 || true
 }
 trap cleanup EXIT
@@ -38,6 +39,9 @@ log "Starting the object store for the tests (http://127.0.0.1:$S3_PORT)"
 stop_bg s3-test
 rm -rf "$DATA_DIR/s3-test"
 bash scripts/s3.sh start s3-test "$S3_PORT" "$S3_BUCKET"
+log "Starting the payment service stand-in for the tests (127.0.0.1:$PAY_PORT)"
+stop_bg pay-fake-test
+bash scripts/pay.sh start pay-fake-test "$PAY_PORT"
 npm run --silent db:migrate -- --quiet
 npm run --silent db:seed
 

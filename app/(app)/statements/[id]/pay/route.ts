@@ -1,0 +1,28 @@
+import { NextResponse } from 'next/server';
+import { optionalUser } from '@/lib/auth/session';
+import { toErrorResponse } from '@/lib/api/errors';
+import { contextOf } from '@/lib/ledger/service';
+import { startCheckout } from '@/lib/payments/service';
+
+/**
+ * The pay link of the statement e-mail: after sign-in, straight to the payment service's page
+ * for the statement's balance.
+ */
+export async function GET(req: Request, { params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const url = new URL(req.url);
+  const user = await optionalUser();
+  if (!user) {
+    const signIn = new URL('/sign-in', url);
+    signIn.searchParams.set('callbackUrl', `/statements/${id}/pay`);
+    return NextResponse.redirect(signIn, 303);
+  }
+  try {
+    const { url: checkout } = await startCheckout(contextOf(user), id);
+    return NextResponse.redirect(checkout, 303);
+  } catch (err) {
+    const res = toErrorResponse(err);
+    if (res.status === 409) return NextResponse.redirect(new URL(`/statements/${id}`, url), 303);
+    return res;
+  }
+}

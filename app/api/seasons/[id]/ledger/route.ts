@@ -1,0 +1,30 @@
+import { NextResponse } from 'next/server';
+import { requireUser } from '@/lib/auth/session';
+import { route } from '@/lib/api/errors';
+import { contextOf, getLedger } from '@/lib/ledger/service';
+import { LedgerFormat } from '@/lib/ledger/schema';
+import { ledgerCsv } from '@/lib/ledger/csv';
+import { ledgerPdf } from '@/lib/ledger/pdf';
+import { getCooperative } from '@/lib/coop';
+
+/** The Season ledger: JSON (default), `?format=csv` or `?format=pdf`. A member sees its own row. */
+export const GET = route(async (req, { params }: { params: Promise<{ id: string }> }) => {
+  const user = await requireUser();
+  const { id } = await params;
+  const format = LedgerFormat.parse(new URL(req.url).searchParams.get('format') ?? undefined);
+  const ledger = await getLedger(contextOf(user), id);
+  const base = `ledger-${ledger.season.label.replace(/[^A-Za-z0-9]+/g, '-').toLowerCase()}`;
+  if (format === 'csv') {
+    return new Response(ledgerCsv(ledger), {
+      headers: { 'content-type': 'text/csv; charset=utf-8', 'content-disposition': `attachment; filename="${base}.csv"` },
+    });
+  }
+  if (format === 'pdf') {
+    const coop = await getCooperative({ cooperativeId: user.cooperativeId });
+    const pdf = await ledgerPdf(ledger, coop.name);
+    return new Response(new Uint8Array(pdf), {
+      headers: { 'content-type': 'application/pdf', 'content-disposition': `attachment; filename="${base}.pdf"` },
+    });
+  }
+  return NextResponse.json(ledger);
+});

@@ -1,0 +1,207 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { QueryTypes } from 'sequelize';
+import { allocateRun } from '@/lib/ledger/allocate-run';
+import { sugarKg } from '@/lib/sugar';
+import { Client, signedIn } from './http';
+import { closeTestDb, rows, testDb } from './db';
+import { makeWorkedExample, type WorkedExample } from './ledger-fixture';
+import { BASE_URL } from '../test-env';
+
+/*
+ * The worked example of three households (the same one is worked by hand in
+ * tests/unit/ledger/rules.test.ts). Sugar from the density table of sucrose solutions at 20 °C,
+ * CRC Handbook of Chemistry and Physics, "Concentrative properties of aqueous solutions" (after
+ * NBS Circular C440, 1942): 1.0099 g/cm³ at 3 °Bx, 1.0060 at 2 °Bx, 1.00405 at 1.5 °Bx
+ * (between the 1 and 2 °Bx rows).
+ *   Ash    one lot of 400 L at 3.0 °Bx            → 400 × 1.0099 × 0.030  = 12.1188 kg
+ *   Birch  two lots of 200 L at 1.5 °Bx           → 2 × 200 × 1.00405 × 0.015 = 6.0243 kg
+ *   Cedar  200 L at 2.0 °Bx (and 100 L rejected)  → 200 × 1.0060 × 0.020  = 4.024 kg
+ * Run 1 (Ash 400 L + Birch 200 L = 15.13095 kg): 6.000 L Golden, 9.900 L Amber, ½ cord = 13,000 ¢.
+ *   Ash's share 0.800928 → Golden 4805.57 → 4806 mL (largest remainder), Birch 1194;
+ *   Amber 7929.19 / 1970.81 → 7929 / 1971; fuel 10412.06 / 2587.94 → 10412 / 2588 ¢.
+ * Run 2 (Birch 200 L + Cedar 200 L = 7.03615 kg): 7.500 L Dark, ¼ cord = 6,500 ¢.
+ *   Birch's share 0.428096 → Dark 3210.72 / 4289.28 → 3211 / 4289 mL; fuel 2782.63 / 3717.37 → 2783 / 3717 ¢.
+ * Season: Ash 12735 mL, 10412 ¢ + 2500 ¢ fee = 12912 ¢; Birch 6376 mL, 5371 ¢; Cedar 4289 mL,
+ * 3717 ¢ + 2500 ¢ = 6217 ¢. Shares of 22.1671 kg: 0.546702, 0.271768, 0.181530.
+ * By volume Birch would have had 9050 mL for its 400 L (22.6 mL/L) instead of 6376 mL (15.9 mL/L).
+ */
+
+let ex: WorkedExample;
+let coordinator: Client;
+let birch: Client;
+
+/** Finishes a run as the Runs service does: status, then the allocation, in one transaction. */
+async function finishRun(runId: string) {
+  await testDb().transaction(async (transaction) => {
+    await testDb().query(`UPDATE boil_runs SET status = 'finished', finished_at = now() WHERE id = :runId`, { replacements: { runId }, transaction });
+    await allocateRun({ cooperativeId: ex.cooperativeId, transaction }, runId);
+  });
+}
+
+beforeAll(async () => {
+  ex = await makeWorkedExample();
+  await testDb().transaction((transaction) => allocateRun({ cooperativeId: ex.cooperativeId, transaction }, ex.runs.run1));
+  await finishRun(ex.runs.run2);
+  coordinator = await signedIn(ex.emails.coordinator);
+  birch = await signedIn(ex.emails.birch);
+});
+
+afterAll(closeTestDb);
+
+describe('the settlement by sugar (worked example of three households)', () => {
+  it('matches the hand-worked figures to the millilitre and the cent', async () => {
+    const res = await coordinator.get(`/api/seasons/${ex.seasonId}/settlement`);
+    expect(res.status).toBe(200);
+    expect(res.body).toEqual({
+      seasonId: ex.seasonId,
+      households: [
+        { householdId: ex.households.ash, name: 'Ash', sapL: 400, sugarKg: 12.1188, share: 0.546702, syrupMl: 12735, fuelCents: 10412, feeCents: 2500, dueCents: 12912 },
+        { householdId: ex.households.birch, name: 'Birch', sapL: 400, sugarKg: 6.0243, share: 0.271768, syrupMl: 6376, fuelCents: 5371, feeCents: 0, dueCents: 5371 },
+        { householdId: ex.households.cedar, name: 'Cedar', sapL: 200, sugarKg: 4.024, share: 0.18153, syrupMl: 4289, fuelCents: 3717, feeCents: 2500, dueCents: 6217 },
+      ],
+      totals: { sugarKg: 22.1671, syrupMl: 23400, fuelCents: 19500 },
+    });
+    // The lots' sugar agrees with lib/sugar's own figure.
+    expect(sugarKg(400, 3)).toBeCloseTo(12.1188, 10);
+  });
+
+  it('conserves the runs’ syrup and fuel exactly', async () => {
+    const [drawn] = await rows<{ ml: string }>(`SELECT sum(round(litres * 1000)) AS ml FROM syrup_draws d JOIN boil_runs r ON r.id = d.run_id WHERE r.season_id = :s`, { s: ex.seasonId });
+    const [fuel] = await rows<{ c: string }>(`SELECT sum(cost_cents) AS c FROM fuel_uses f JOIN boil_runs r ON r.id = f.run_id WHERE r.season_id = :s`, { s: ex.seasonId });
+    const [alloc] = await rows<{ ml: string; c: string }>(`SELECT sum(syrup_ml) AS ml, sum(fuel_cents) AS c FROM allocations WHERE season_id = :s`, { s: ex.seasonId });
+    expect(Number(alloc.ml)).toBe(Number(drawn.ml));
+    expect(Number(alloc.c)).toBe(Number(fuel.c));
+    // Per run and per colour class too.
+    const perRun = await rows<{ run_id: string; golden: string; amber: string; dark: string }>(
+      `SELECT run_id, sum(syrup_golden_ml) AS golden, sum(syrup_amber_ml) AS amber, sum(syrup_dark_ml) AS dark FROM allocations WHERE season_id = :s GROUP BY run_id`,
+      { s: ex.seasonId },
+    );
+    const run1 = perRun.find((r) => r.run_id === ex.runs.run1)!;
+    expect([Number(run1.golden), Number(run1.amber), Number(run1.dark)]).toEqual([6000, 9900, 0]);
+  });
+
+  it('gives the low-sugar household less syrup per litre than a split by volume would', async () => {
+    const res = await birch.get(`/api/seasons/${ex.seasonId}/ledger`);
+    expect(res.status).toBe(200);
+    const [own] = res.body.households;
+    expect(own.name).toBe('Birch');
+    expect(own.syrupMl).toBe(6376);
+    expect(own.byVolume.syrupMl).toBe(9050);
+    expect(own.syrupMl / own.boiledL).toBeLessThan(own.byVolume.syrupMl / own.boiledL);
+    // And the sweet sap's household gets more by sugar than by volume.
+    const all = (await coordinator.get(`/api/seasons/${ex.seasonId}/ledger`)).body;
+    const ash = all.households.find((h: { name: string }) => h.name === 'Ash');
+    expect(ash.syrupMl).toBeGreaterThan(ash.byVolume.syrupMl);
+  });
+
+  it('counts a rejected lot nowhere', async () => {
+    const all = (await coordinator.get(`/api/seasons/${ex.seasonId}/ledger`)).body;
+    const cedar = all.households.find((h: { name: string }) => h.name === 'Cedar');
+    expect(cedar.rejectedL).toBe(100);
+    expect(cedar.sapL).toBe(200);
+    expect(cedar.meanBrix).toBe(2);
+    expect(cedar.sugarKg).toBeCloseTo(4.024, 10);
+    expect(cedar.sugarDeliveredKg).toBeCloseTo(4.024, 10);
+    expect(all.weeks.reduce((s: number, w: { sugarKg: Record<string, number> }) => s + (w.sugarKg[ex.households.cedar] ?? 0), 0)).toBeCloseTo(4.024, 10);
+    // The database itself refuses to boil a rejected lot.
+    await expect(
+      testDb().query(`INSERT INTO run_inputs (cooperative_id, run_id, delivery_id, litres) VALUES (:c, :r, :d, 10)`, {
+        replacements: { c: ex.cooperativeId, r: ex.runs.run2, d: ex.lots.cedarRejected },
+      }),
+    ).rejects.toThrow(/sap_deliveries_boiled_only_accepted/);
+  });
+
+  it('shows a member its own household only, with the others’ names and the co-op totals', async () => {
+    const s = await birch.get(`/api/seasons/${ex.seasonId}/settlement`);
+    expect(s.body.households.map((h: { name: string }) => h.name)).toEqual(['Birch']);
+    expect(s.body.totals).toEqual({ sugarKg: 22.1671, syrupMl: 23400, fuelCents: 19500 });
+    const l = (await birch.get(`/api/seasons/${ex.seasonId}/ledger`)).body;
+    expect(l.householdNames.map((h: { name: string }) => h.name)).toEqual(['Ash', 'Birch', 'Cedar']);
+    expect(l.runs.flatMap((r: { allocations: { householdId: string }[] }) => r.allocations.map((a) => a.householdId))).toEqual([ex.households.birch, ex.households.birch]);
+    expect(JSON.stringify(l)).not.toContain('"name":"Ash","sapL"');
+    expect(Object.keys(l.weeks.reduce((a: object, w: { sugarKg: object }) => ({ ...a, ...w.sugarKg }), {}))).toEqual([ex.households.birch]);
+  });
+
+  it('keeps other co-ops out: the demo coordinator gets 404 for this season', async () => {
+    const demo = await signedIn('coordinator@larkspur.example');
+    expect((await demo.get(`/api/seasons/${ex.seasonId}/settlement`)).status).toBe(404);
+    expect((await demo.get(`/api/seasons/${ex.seasonId}/ledger`)).status).toBe(404);
+    expect((await new Client().get(`/api/seasons/${ex.seasonId}/settlement`)).status).toBe(401);
+  });
+
+  it('exports the ledger as CSV and PDF', async () => {
+    const csv = await coordinator.request('GET', `/api/seasons/${ex.seasonId}/ledger?format=csv`);
+    expect(csv.status).toBe(200);
+    const lines = String(csv.body).trim().split(/\r?\n/);
+    expect(lines[0]).toContain('household,sap_l,rejected_l,mean_brix,sugar_kg,share,syrup_ml');
+    expect(lines[1]).toMatch(/^Ash,400,0,3,12\.1188,0\.546702,12735,4806,7929,0,0,10412,2500,12912,/);
+    expect(lines).toHaveLength(5);
+    const pdf = await fetch(`${BASE_URL}/api/seasons/${ex.seasonId}/ledger?format=pdf`, { headers: { cookie: coordinator.cookieHeader } });
+    expect(pdf.headers.get('content-type')).toBe('application/pdf');
+    expect(Buffer.from(await pdf.arrayBuffer()).subarray(0, 5).toString()).toBe('%PDF-');
+  });
+});
+
+describe('reopening and finishing a run again', () => {
+  it('recomputes that run’s allocation and nothing else, with who changed what', async () => {
+    const before = await rows<Record<string, unknown>>(`SELECT * FROM allocations WHERE season_id = :s ORDER BY run_id, household_id`, { s: ex.seasonId });
+    const run1Before = before.filter((r) => r.run_id === ex.runs.run1);
+
+    expect((await birch.post(`/api/runs/${ex.runs.run2}/reopen`, { reason: 'A draw-off was missed' })).status).toBe(403);
+    expect((await coordinator.post(`/api/runs/${ex.runs.run2}/reopen`, {})).status).toBe(422);
+    const reopened = await coordinator.post(`/api/runs/${ex.runs.run2}/reopen`, { reason: 'A draw-off was missed' });
+    expect(reopened.status).toBe(200);
+    expect(reopened.body.status).toBe('running');
+    // While reopened the allocation stands unchanged.
+    expect(await rows(`SELECT * FROM allocations WHERE season_id = :s ORDER BY run_id, household_id`, { s: ex.seasonId })).toEqual(before);
+
+    // The missed draw-off: 1.000 L more Dark syrup.
+    await testDb().query(`INSERT INTO syrup_draws (cooperative_id, run_id, drawn_at, litres, brix, transmittance_pct, grade_class) VALUES (:c, :r, now(), 1.0, 67, 30, 'dark')`, {
+      replacements: { c: ex.cooperativeId, r: ex.runs.run2 },
+    });
+    await finishRun(ex.runs.run2);
+
+    const after = await rows<Record<string, unknown>>(`SELECT * FROM allocations WHERE season_id = :s ORDER BY run_id, household_id`, { s: ex.seasonId });
+    expect(after.filter((r) => r.run_id === ex.runs.run1)).toEqual(run1Before);
+    // 8500 mL Dark by 0.428096 / 0.571904: 3638.82 / 4861.18 → 3638 / 4861, one left to Birch (.82) → 3639 / 4861.
+    const run2 = after.filter((r) => r.run_id === ex.runs.run2);
+    expect(Object.fromEntries(run2.map((r) => [r.household_id, r.syrup_dark_ml]))).toEqual({ [ex.households.birch]: 3639, [ex.households.cedar]: 4861 });
+
+    const history = await rows<{ event: string; reason: string | null; changed_by_id: string | null; before: unknown[]; after: unknown[] }>(
+      `SELECT event, reason, changed_by_id, before, after FROM allocation_revisions WHERE run_id = :r ORDER BY changed_at, event`,
+      { r: ex.runs.run2 },
+    );
+    expect(history.map((h) => h.event)).toEqual(['finished', 'reopened', 'refinished']);
+    expect(history[1].reason).toBe('A draw-off was missed');
+    expect(history[1].changed_by_id).not.toBeNull();
+    expect(history[2].before).toHaveLength(2);
+    expect((history[2].after as { dark: number }[]).map((a) => a.dark).sort()).toEqual([3639, 4861]);
+    const run1History = await rows(`SELECT event FROM allocation_revisions WHERE run_id = :r`, { r: ex.runs.run1 });
+    expect(run1History).toHaveLength(1);
+
+    const s = (await coordinator.get(`/api/seasons/${ex.seasonId}/settlement`)).body;
+    expect(s.totals.syrupMl).toBe(24400);
+  });
+});
+
+describe('closing the season', () => {
+  it('is for coordinators, refuses while a run boils, then stops runs being reopened', async () => {
+    expect((await birch.post(`/api/seasons/${ex.seasonId}/close`)).status).toBe(403);
+    const [{ id: running }] = await testDb().query<{ id: string }>(
+      `INSERT INTO boil_runs (cooperative_id, season_id, evaporator_id, run_number, lot_code, status, started_at)
+       VALUES (:c, :s, :e, 3, :code, 'running', now()) RETURNING id`,
+      { replacements: { c: ex.cooperativeId, s: ex.seasonId, e: ex.evaporatorId, code: `${new Date().getFullYear()}-003` }, type: QueryTypes.SELECT },
+    );
+    const refused = await coordinator.post(`/api/seasons/${ex.seasonId}/close`);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.code).toBe('run_running');
+    await testDb().query(`DELETE FROM boil_runs WHERE id = :id`, { replacements: { id: running } });
+
+    const closed = await coordinator.post(`/api/seasons/${ex.seasonId}/close`);
+    expect(closed.status).toBe(200);
+    expect(closed.body.status).toBe('closed');
+    const reopen = await coordinator.post(`/api/runs/${ex.runs.run1}/reopen`, { reason: 'too late' });
+    expect(reopen.status).toBe(409);
+    expect(reopen.body.error.code).toBe('season_not_open');
+  });
+});
