@@ -5,6 +5,7 @@ import * as boilSlots from './20261201-0002-boil-slots';
 import * as realtime from './20261201-0003-realtime';
 import * as deliveries from './20261202-0010-deliveries';
 import * as runs from './20261202-0020-runs';
+import * as ledger from './20261202-0030-ledger';
 
 interface MigrationModule {
   up: MigrationFn<QueryInterface>;
@@ -18,4 +19,5 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '20261201-0003-realtime', module: realtime },
   { name: '20261202-0010-deliveries', module: deliveries },
   { name: '20261202-0020-runs', module: runs },
+  { name: '20261202-0030-ledger', module: ledger },
 ];

@@ -1,6 +1,7 @@
 // Server code only (it talks to the database), but without the 'server-only' marker: the Runs
 // service, server.ts and the tests import it under plain Node, where that marker throws.
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import { ApiError } from '@/lib/api/errors';
 import type { GradeClass } from '@/lib/sugar/grade';
 import { allocateRunRows, type RunAllocation } from './rules';
 
@@ -11,13 +12,13 @@ export interface AllocateRunContext {
   actor?: { id: string; role: string } | null;
 }
 
-/** A run that cannot be allocated (not this co-op's, or not finished). */
-export class RunAllocationError extends Error {
+/** A run that cannot be allocated (not this co-op's, not finished, or syrup with no sugar in). */
+export class RunAllocationError extends ApiError {
   constructor(
     message: string,
     readonly code: 'run_not_found' | 'run_not_finished' | 'run_without_sugar',
   ) {
-    super(message);
+    super(code === 'run_not_found' ? 404 : code === 'run_not_finished' ? 409 : 422, message, code === 'run_without_sugar' ? { runId: message } : undefined, { code });
     this.name = 'RunAllocationError';
   }
 }
@@ -81,20 +82,19 @@ export async function allocateRun(ctx: AllocateRunContext, runId: string): Promi
   if (!run) throw new RunAllocationError('That run was not found.', 'run_not_found');
   if (run.status !== 'finished') throw new RunAllocationError('Finish the run before sharing out its syrup and fuel.', 'run_not_finished');
 
-  const [inputs, draws, [fuel], before, [history]] = await Promise.all([
-    q<{ householdId: string; litres: number; brix: number }>(
+  // One connection per transaction: these run one after another.
+  const inputs = await q<{ householdId: string; litres: number; brix: number }>(
       `SELECT d.household_id AS "householdId", ri.litres, d.brix::float8 AS brix
          FROM run_inputs ri JOIN sap_deliveries d ON d.id = ri.delivery_id AND d.cooperative_id = ri.cooperative_id
         WHERE ri.run_id = :runId AND ri.cooperative_id = :cooperativeId AND d.status = 'accepted'
         ORDER BY ri.created_at, ri.id`,
-    ),
-    q<{ litres: number; gradeClass: GradeClass }>(
+  );
+  const draws = await q<{ litres: number; gradeClass: GradeClass }>(
       `SELECT litres, grade_class AS "gradeClass" FROM syrup_draws WHERE run_id = :runId AND cooperative_id = :cooperativeId`,
-    ),
-    q<{ cents: string }>(`SELECT COALESCE(sum(cost_cents), 0) AS cents FROM fuel_uses WHERE run_id = :runId AND cooperative_id = :cooperativeId`),
-    storedAllocation(ctx, runId),
-    q<{ n: string }>(`SELECT count(*) AS n FROM allocation_revisions WHERE run_id = :runId AND cooperative_id = :cooperativeId`),
-  ]);
+  );
+  const [fuel] = await q<{ cents: string }>(`SELECT COALESCE(sum(cost_cents), 0) AS cents FROM fuel_uses WHERE run_id = :runId AND cooperative_id = :cooperativeId`);
+  const before = await storedAllocation(ctx, runId);
+  const [history] = await q<{ n: string }>(`SELECT count(*) AS n FROM allocation_revisions WHERE run_id = :runId AND cooperative_id = :cooperativeId`);
 
   let rows: RunAllocation[];
   try {

@@ -77,14 +77,27 @@ interface AllocationDbRow {
 async function computeLedger(ctx: LedgerContext, season: SeasonRow): Promise<Ledger> {
   const r = { seasonId: season.id, cooperativeId: ctx.cooperativeId, tz: season.timeZone };
   const t = ctx.transaction;
-  const [households, lots, allocs, runs, fees, paid, statements] = await Promise.all([
-    select<{ householdId: string; name: string }>(
+  // In parallel over the pool; one after another on a transaction's single connection.
+  const all = <T extends readonly unknown[]>(thunks: { [K in keyof T]: () => Promise<T[K]> }): Promise<T> =>
+    (t ? thunks.reduce(async (acc, f) => [...(await acc), await f()], Promise.resolve([] as unknown[])) : Promise.all(thunks.map((f) => f()))) as unknown as Promise<T>;
+  const [households, lots, allocs, runs, fees, paid, statements] = await all<
+    [
+      { householdId: string; name: string }[],
+      DeliveryRow[],
+      AllocationDbRow[],
+      { runId: string; lotCode: string | null; finishedAt: string | null }[],
+      { householdId: string; feeCents: number }[],
+      { householdId: string; paidCents: string }[],
+      { id: string; householdId: string; sentAt: string | null }[],
+    ]
+  >([
+    () => select<{ householdId: string; name: string }>(
       `SELECT id AS "householdId", name FROM households WHERE cooperative_id = :cooperativeId ORDER BY lower(name)`,
       r,
       t,
     ),
     // Sugar is linear in volume at one °Brix, so lots can be summed per reading before lib/sugar.
-    select<DeliveryRow>(
+    () => select<DeliveryRow>(
       `SELECT household_id AS "householdId", status, brix::float8 AS brix, sum(volume_l) AS "volumeL",
               to_char(date_trunc('week', received_at AT TIME ZONE :tz), 'YYYY-MM-DD') AS week
          FROM sap_deliveries WHERE cooperative_id = :cooperativeId AND season_id = :seasonId
@@ -92,7 +105,7 @@ async function computeLedger(ctx: LedgerContext, season: SeasonRow): Promise<Led
       r,
       t,
     ),
-    select<AllocationDbRow>(
+    () => select<AllocationDbRow>(
       `SELECT run_id AS "runId", household_id AS "householdId", sap_l AS "sapL", sugar_kg AS "sugarKg", share,
               syrup_golden_ml AS golden, syrup_amber_ml AS amber, syrup_dark_ml AS dark, syrup_very_dark_ml AS "veryDark",
               fuel_cents AS "fuelCents"
@@ -100,26 +113,26 @@ async function computeLedger(ctx: LedgerContext, season: SeasonRow): Promise<Led
       r,
       t,
     ),
-    select<{ runId: string; lotCode: string | null; finishedAt: string | null }>(
+    () => select<{ runId: string; lotCode: string | null; finishedAt: string | null }>(
       `SELECT id AS "runId", lot_code AS "lotCode", to_char(finished_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS"Z"') AS "finishedAt"
          FROM boil_runs WHERE cooperative_id = :cooperativeId AND season_id = :seasonId AND status = 'finished'
         ORDER BY started_at, id`,
       r,
       t,
     ),
-    select<{ householdId: string; feeCents: number }>(
+    () => select<{ householdId: string; feeCents: number }>(
       `SELECT household_id AS "householdId", fee_cents AS "feeCents" FROM season_fees WHERE cooperative_id = :cooperativeId AND season_id = :seasonId`,
       r,
       t,
     ),
-    select<{ householdId: string; paidCents: string }>(
+    () => select<{ householdId: string; paidCents: string }>(
       `SELECT s.household_id AS "householdId", sum(p.amount_cents) AS "paidCents"
          FROM payments p JOIN settlements s ON s.id = p.settlement_id
         WHERE s.cooperative_id = :cooperativeId AND s.season_id = :seasonId GROUP BY 1`,
       r,
       t,
     ),
-    select<{ id: string; householdId: string; sentAt: string | null }>(
+    () => select<{ id: string; householdId: string; sentAt: string | null }>(
       `SELECT id, household_id AS "householdId", to_char(sent_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS"Z"') AS "sentAt"
          FROM settlements WHERE cooperative_id = :cooperativeId AND season_id = :seasonId`,
       r,

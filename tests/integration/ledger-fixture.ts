@@ -8,7 +8,8 @@ import { DEMO_PASSWORD } from '../test-env';
 /**
  * A small co-op of its own for the ledger tests (so the demo data never changes the figures):
  * three households, the worked example's lots and two finished runs, written straight to the
- * database as the drop-off desk and the Runs screen would. Dates are relative to now.
+ * database as the drop-off desk and the Runs screen would; both runs are left running for the
+ * test to finish through the Runs API. Dates are relative to now.
  */
 export interface WorkedExample {
   cooperativeId: string;
@@ -101,12 +102,17 @@ export async function makeWorkedExample({ currency = 'USD', unitSystem = 'metric
       cedar: await lot(households.cedar, 200, 2.0, 4),
       cedarRejected: await lot(households.cedar, 100, 2.5, 4, 'rejected'),
     };
+    // Two evaporators, so both runs can be open for their finish through the Runs API.
+    const { id: evaporator2 } = await q<{ id: string }>(
+      `INSERT INTO evaporators (cooperative_id, name, evaporation_lph, fuel_kind) VALUES (:cooperativeId, 'Test arch 2', 150, 'wood') RETURNING id`,
+      { cooperativeId },
+    );
     const run = async (n: number, daysAgo: number) =>
       (
         await q<{ id: string }>(
           `INSERT INTO boil_runs (cooperative_id, season_id, evaporator_id, run_number, lot_code, status, started_at)
            VALUES (:cooperativeId, :seasonId, :evaporatorId, :n, :code, 'running', :startedAt) RETURNING id`,
-          { cooperativeId, seasonId, evaporatorId, n, code: `${today.year}-${String(n).padStart(3, '0')}`, startedAt: today.minus({ days: daysAgo }).set({ hour: 8 }).toJSDate() },
+          { cooperativeId, seasonId, evaporatorId: n === 1 ? evaporatorId : evaporator2, n, code: `${today.year}-${String(n).padStart(3, '0')}`, startedAt: today.minus({ days: daysAgo }).set({ hour: 8 }).toJSDate() },
         )
       ).id;
     const input = (runId: string, deliveryId: string, litres: number) =>
@@ -137,7 +143,6 @@ export async function makeWorkedExample({ currency = 'USD', unitSystem = 'metric
     await draw(run1, 6.0, 80, 'golden');
     await draw(run1, 9.9, 60, 'amber');
     await fuel(run1, 0.5, 13000);
-    await q(`UPDATE boil_runs SET status = 'finished', finished_at = started_at + interval '6 hours' WHERE id = :run1 RETURNING id`, { run1 });
     const run2 = await run(2, 3);
     await input(run2, lots.birch2, 200);
     await input(run2, lots.cedar, 200);

@@ -1,6 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
-import { allocateRun } from '@/lib/ledger/allocate-run';
 import { sugarKg } from '@/lib/sugar';
 import { Client, signedIn } from './http';
 import { closeTestDb, rows, testDb } from './db';
@@ -30,21 +29,22 @@ let ex: WorkedExample;
 let coordinator: Client;
 let birch: Client;
 
-/** Finishes a run as the Runs service does: status, then the allocation, in one transaction. */
+let sugarmaker: Client;
+
+/** Finishes a run through the Runs API, whose finish transaction allocates it. */
 async function finishRun(runId: string) {
-  await testDb().transaction(async (transaction) => {
-    await testDb().query(`UPDATE boil_runs SET status = 'finished', finished_at = now() WHERE id = :runId`, { replacements: { runId }, transaction });
-    await allocateRun({ cooperativeId: ex.cooperativeId, transaction }, runId);
-  });
+  const res = await sugarmaker.post(`/api/runs/${runId}/finish`, {});
+  expect(res.status).toBe(200);
 }
 
 beforeAll(async () => {
   ex = await makeWorkedExample();
-  await testDb().transaction((transaction) => allocateRun({ cooperativeId: ex.cooperativeId, transaction }, ex.runs.run1));
-  await finishRun(ex.runs.run2);
   coordinator = await signedIn(ex.emails.coordinator);
+  sugarmaker = await signedIn(ex.emails.sugarmaker);
   birch = await signedIn(ex.emails.birch);
-});
+  await finishRun(ex.runs.run1);
+  await finishRun(ex.runs.run2);
+}, 240_000);
 
 afterAll(closeTestDb);
 
@@ -156,9 +156,7 @@ describe('reopening and finishing a run again', () => {
     expect(await rows(`SELECT * FROM allocations WHERE season_id = :s ORDER BY run_id, household_id`, { s: ex.seasonId })).toEqual(before);
 
     // The missed draw-off: 1.000 L more Dark syrup.
-    await testDb().query(`INSERT INTO syrup_draws (cooperative_id, run_id, drawn_at, litres, brix, transmittance_pct, grade_class) VALUES (:c, :r, now(), 1.0, 67, 30, 'dark')`, {
-      replacements: { c: ex.cooperativeId, r: ex.runs.run2 },
-    });
+    expect((await sugarmaker.post(`/api/runs/${ex.runs.run2}/draws`, { litres: 1.0, brix: 67, transmittancePct: 30 })).status).toBeLessThan(300);
     await finishRun(ex.runs.run2);
 
     const after = await rows<Record<string, unknown>>(`SELECT * FROM allocations WHERE season_id = :s ORDER BY run_id, household_id`, { s: ex.seasonId });
@@ -174,6 +172,7 @@ describe('reopening and finishing a run again', () => {
     expect(history.map((h) => h.event)).toEqual(['finished', 'reopened', 'refinished']);
     expect(history[1].reason).toBe('A draw-off was missed');
     expect(history[1].changed_by_id).not.toBeNull();
+    expect(history[2].changed_by_id).not.toBeNull();
     expect(history[2].before).toHaveLength(2);
     expect((history[2].after as { dark: number }[]).map((a) => a.dark).sort()).toEqual([3639, 4861]);
     const run1History = await rows(`SELECT event FROM allocation_revisions WHERE run_id = :r`, { r: ex.runs.run1 });
