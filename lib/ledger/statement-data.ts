@@ -3,11 +3,37 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import type { Statement } from './types';
 
+interface StatementRow {
+  id: string;
+  seasonId: string;
+  seasonLabel: string;
+  householdId: string;
+  householdName: string;
+  cooperativeName: string;
+  currency: string;
+  unitSystem: 'metric' | 'us';
+  sapL: number;
+  meanBrix: number | null;
+  sugarKg: number;
+  share: number;
+  golden: number;
+  amber: number;
+  dark: number;
+  veryDark: number;
+  syrupMl: number;
+  fuelCents: number;
+  feeCents: number;
+  dueCents: number;
+  settledAt: string;
+  sentAt: string | null;
+  payments: Statement['payments'];
+}
+
 const ISO = (col: string) => `to_char(${col} AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS"Z"')`;
 
 /** One statement (a settlement row) with its payments, or null when not in this co-op. */
 export async function loadStatement(sequelize: Sequelize, id: string, cooperativeId: string, transaction?: Transaction): Promise<Statement | null> {
-  const [row] = await sequelize.query<Record<string, any>>(
+  const [row] = await sequelize.query<StatementRow>(
     `SELECT st.id, st.season_id AS "seasonId", se.label AS "seasonLabel", st.household_id AS "householdId",
             h.name AS "householdName", c.name AS "cooperativeName", c.currency, c.unit_system AS "unitSystem",
             st.sap_l AS "sapL", st.mean_brix AS "meanBrix", st.sugar_kg AS "sugarKg", st.share,
@@ -26,7 +52,7 @@ export async function loadStatement(sequelize: Sequelize, id: string, cooperativ
     { replacements: { id, cooperativeId }, type: QueryTypes.SELECT, transaction },
   );
   if (!row) return null;
-  const payments = row.payments as Statement['payments'];
+  const payments = row.payments;
   const paidCents = payments.reduce((s, p) => s + p.amountCents, 0);
   return {
     id: row.id,
