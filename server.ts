@@ -4,16 +4,15 @@ import { Server } from 'socket.io';
 import { createAdapter } from '@socket.io/postgres-adapter';
 import pg from 'pg';
 import { parse as parseCookie } from 'cookie';
-import { decode } from 'next-auth/jwt';
+import { getToken } from 'next-auth/jwt';
 import { env } from '@/lib/env';
-import { coopRoom, setRealtimeServer } from '@/lib/realtime';
+import { coopRoom, personRoom, setRealtimeServer } from '@/lib/realtime';
+import { personFromClaims } from '@/lib/server/person';
 import { startMailWorker, stopMailQueue } from '@/lib/mail/outbox';
 import { startStatementWorker } from '@/lib/ledger/statement-mail';
 import { getSequelize } from '@/db';
 import { displayRoom, findDisplayLink } from '@/lib/display/tokens';
 import { sendCurrentQueue, startQueueBroadcaster } from '@/lib/queue/live';
-
-const SESSION_COOKIES = ['__Secure-next-auth.session-token', 'next-auth.session-token'];
 
 async function main() {
   const e = env();
@@ -31,7 +30,8 @@ async function main() {
     });
   });
 
-  // socket.io on its own path; a socket must carry a valid session cookie to join its co-op's room.
+  // socket.io on its own path. A socket passes the same check as a request: next-auth's token
+  // reader, then the person as the database has them now (exists, session version current).
   const io = new Server(server, { path: '/realtime', serveClient: false });
   // Events reach the sockets of every server process that shares the database.
   const adapterPool = new pg.Pool({ connectionString: e.DATABASE_URL, max: 3 });
@@ -47,11 +47,11 @@ async function main() {
         socket.data.display = { kind: 'display', displayLinkId: link.id, cooperativeId: link.cooperativeId };
         return nextFn();
       }
-      const cookies = parseCookie(socket.request.headers.cookie ?? '');
-      const raw = SESSION_COOKIES.map((n) => cookies[n]).find(Boolean);
-      const token = raw ? await decode({ token: raw, secret: e.NEXTAUTH_SECRET }) : null;
-      if (!token?.cooperativeId) return nextFn(new Error('Please sign in first.'));
-      socket.data.user = { id: token.uid, role: token.role, cooperativeId: token.cooperativeId };
+      const req = { headers: socket.request.headers, cookies: parseCookie(socket.request.headers.cookie ?? '') };
+      const claims = await getToken({ req: req as unknown as Parameters<typeof getToken>[0]['req'], secret: e.NEXTAUTH_SECRET });
+      const person = await personFromClaims(claims);
+      if (!person) return nextFn(new Error('Please sign in first.'));
+      socket.data.user = { id: person.actor.userId, role: person.actor.role, cooperativeId: person.cooperativeId };
       nextFn();
     } catch {
       nextFn(new Error('Please sign in first.'));
@@ -61,6 +61,7 @@ async function main() {
     const cooperativeId: string = socket.data.display?.cooperativeId ?? socket.data.user.cooperativeId;
     socket.join(coopRoom(cooperativeId));
     if (socket.data.display) socket.join(displayRoom(socket.data.display.displayLinkId));
+    else socket.join(personRoom(socket.data.user.id));
     void sendCurrentQueue(socket, cooperativeId);
   });
   setRealtimeServer(io);

@@ -1,5 +1,7 @@
 import 'server-only';
 import { db } from '@/db/models';
+import type { Ctx } from '@/lib/server/context';
+import { notFound } from '@/lib/server/errors';
 
 export interface SeasonDto {
   id: string;
@@ -16,9 +18,9 @@ export interface EvaporatorDto {
   fuelKind: string;
 }
 
-export async function listSeasons({ cooperativeId }: { cooperativeId: string }): Promise<SeasonDto[]> {
+export async function listSeasons(ctx: Ctx): Promise<SeasonDto[]> {
   const { Season } = db();
-  const rows = await Season.findAll({ where: { cooperativeId }, order: [['startsOn', 'DESC']] });
+  const rows = await Season.findAll({ where: { cooperativeId: ctx.cooperativeId }, order: [['startsOn', 'DESC']], transaction: ctx.transaction });
   return rows.map((s) => ({
     id: s.id,
     label: s.label,
@@ -29,22 +31,23 @@ export async function listSeasons({ cooperativeId }: { cooperativeId: string }):
   }));
 }
 
-export async function listEvaporators({ cooperativeId }: { cooperativeId: string }): Promise<EvaporatorDto[]> {
+export async function listEvaporators(ctx: Ctx): Promise<EvaporatorDto[]> {
   const { Evaporator } = db();
-  const rows = await Evaporator.findAll({ where: { cooperativeId }, order: [['name', 'ASC']] });
+  const rows = await Evaporator.findAll({ where: { cooperativeId: ctx.cooperativeId }, order: [['name', 'ASC']], transaction: ctx.transaction });
   return rows.map((e) => ({ id: e.id, name: e.name, evaporationLph: e.evaporationLph, fuelKind: e.fuelKind }));
 }
 
-export async function getCooperative({ cooperativeId }: { cooperativeId: string }) {
+/** The acting person's cooperative: the one loader for it. */
+export async function getCooperative(ctx: Ctx) {
   const { Cooperative } = db();
-  const coop = await Cooperative.findByPk(cooperativeId);
-  if (!coop) throw new Error('The signed-in cooperative no longer exists.');
+  const coop = await Cooperative.findByPk(ctx.cooperativeId, { transaction: ctx.transaction });
+  if (!coop) throw notFound('Your cooperative');
   return coop;
 }
 
 /** Household ids and names only: what a sugarmaker needs to book for a household. */
-export async function listHouseholdNames({ cooperativeId }: { cooperativeId: string }) {
+export async function listHouseholdNames(ctx: Ctx) {
   const { Household } = db();
-  const rows = await Household.findAll({ where: { cooperativeId }, attributes: ['id', 'name'], order: [['name', 'ASC']] });
+  const rows = await Household.findAll({ where: { cooperativeId: ctx.cooperativeId }, attributes: ['id', 'name'], order: [['name', 'ASC']], transaction: ctx.transaction });
   return rows.map((h) => ({ id: h.id, name: h.name }));
 }

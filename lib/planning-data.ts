@@ -1,6 +1,7 @@
 import 'server-only';
 import { Op, QueryTypes } from 'sequelize';
 import { db } from '@/db/models';
+import type { Ctx } from '@/lib/server/context';
 import { planBoiling, type BoilPlan, type WaitingLot } from '@/lib/planning';
 import { collectionStart } from '@/lib/deliveries/rules';
 import { spoilageDeadline } from '@/lib/sugar';
@@ -49,17 +50,19 @@ export async function waitingLots(cooperativeId: string): Promise<WaitingLot[]> 
 }
 
 /** The planning strip of the Boil calendar for a co-op's first evaporator. */
-export async function getPlanning({ cooperativeId, now = new Date() }: { cooperativeId: string; now?: Date }): Promise<PlanningDto> {
+export async function getPlanning(ctx: Ctx, { now = new Date() }: { now?: Date } = {}): Promise<PlanningDto> {
   const { Evaporator, BoilSlot, Cooperative } = db();
+  const { cooperativeId, transaction } = ctx;
   const [coop, evaporator] = await Promise.all([
-    Cooperative.findByPk(cooperativeId),
-    Evaporator.findOne({ where: { cooperativeId }, order: [['name', 'ASC']] }),
+    Cooperative.findByPk(cooperativeId, { transaction }),
+    Evaporator.findOne({ where: { cooperativeId }, order: [['name', 'ASC']], transaction }),
   ]);
   const lots = await waitingLots(cooperativeId);
   const slots = evaporator
     ? await BoilSlot.findAll({
         where: { cooperativeId, evaporatorId: evaporator.id, status: 'booked', endsAt: { [Op.gt]: now } },
         attributes: ['startsAt', 'endsAt'],
+        transaction,
       })
     : [];
   const plan = planBoiling({

@@ -1,6 +1,9 @@
 import 'server-only';
 import { db } from '@/db/models';
-import { ApiError } from '@/lib/api/errors';
+import type { Ctx } from '@/lib/server/context';
+import { notFound } from '@/lib/server/errors';
+import { authorize } from '@/lib/server/policies';
+import { withTransaction } from '@/lib/server/tx';
 import type { SettingsInput } from '@/lib/validations/settings';
 
 export type SettingsDto = SettingsInput;
@@ -17,17 +20,19 @@ const pick = (c: import('@/db/models').Cooperative): SettingsDto => ({
   warmShelfDays: c.warmShelfDays,
 });
 
-export async function getSettings({ cooperativeId }: { cooperativeId: string }): Promise<SettingsDto> {
-  const coop = await db().Cooperative.findByPk(cooperativeId);
-  if (!coop) throw new ApiError(404, 'Your cooperative was not found.');
+export async function getSettings(ctx: Ctx): Promise<SettingsDto> {
+  authorize(ctx.actor, 'settings.read');
+  const coop = await db().Cooperative.findByPk(ctx.cooperativeId, { transaction: ctx.transaction });
+  if (!coop) throw notFound('Your cooperative');
   return pick(coop);
 }
 
-export async function updateSettings({ cooperativeId, input }: { cooperativeId: string; input: SettingsInput }): Promise<SettingsDto> {
-  const { Cooperative, sequelize } = db();
-  return sequelize.transaction(async (transaction) => {
+export async function updateSettings(ctx: Ctx, input: SettingsInput): Promise<SettingsDto> {
+  authorize(ctx.actor, 'settings.update');
+  const { Cooperative } = db();
+  return withTransaction(ctx, async ({ cooperativeId, transaction }) => {
     const coop = await Cooperative.findByPk(cooperativeId, { transaction, lock: transaction.LOCK.UPDATE });
-    if (!coop) throw new ApiError(404, 'Your cooperative was not found.');
+    if (!coop) throw notFound('Your cooperative');
     await coop.update(input, { transaction });
     return pick(coop);
   });

@@ -2,8 +2,12 @@ import 'server-only';
 import { DateTime } from 'luxon';
 import { Op, type Transaction } from 'sequelize';
 import { db, type BoilSlot, type Cooperative } from '@/db/models';
-import { ApiError } from '@/lib/api/errors';
-import type { SessionUser } from '@/lib/auth/session';
+import { actorUserId, type Ctx } from '@/lib/server/context';
+import { registerConstraints, sqlState } from '@/lib/server/db-errors';
+import { AppError, conflict, invalid, invalidField, notFound } from '@/lib/server/errors';
+import { authorize, can } from '@/lib/server/policies';
+import { withTransaction } from '@/lib/server/tx';
+import type { Actor } from '@/lib/server/actor';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { slotIcs } from '@/lib/mail/ics';
 import { broadcast } from '@/lib/realtime';
@@ -26,10 +30,14 @@ export interface SlotDto {
   editable: boolean;
 }
 
-const isStaff = (u: SessionUser) => u.role === 'coordinator' || u.role === 'sugarmaker';
+registerConstraints({
+  boil_slots_no_overlap: { code: 'slot_conflict', field: 'startsAt', message: 'That time was just taken by another booking. Pick another time.', fieldMessage: 'This time is taken.' },
+  boil_slots_order: { code: 'invalid_input', field: 'endsAt', message: 'The slot must end after it starts.' },
+  boil_slots_crew_size: { code: 'invalid_input', field: 'crew', message: 'At most 12 people in a crew.' },
+});
 
-function toDto(slot: BoilSlot, householdName: string, user: SessionUser, zone: string): SlotDto {
-  const own = isStaff(user) || slot.householdId === user.householdId;
+function toDto(slot: BoilSlot, householdName: string, actor: Actor, zone: string): SlotDto {
+  const own = can(actor, 'slot.seeDetails', slot);
   return {
     id: slot.id,
     evaporatorId: slot.evaporatorId,
@@ -46,9 +54,9 @@ function toDto(slot: BoilSlot, householdName: string, user: SessionUser, zone: s
   };
 }
 
-async function coopOf(cooperativeId: string, transaction?: Transaction): Promise<Cooperative> {
-  const coop = await db().Cooperative.findByPk(cooperativeId, { transaction });
-  if (!coop) throw new ApiError(404, 'Your cooperative was not found.');
+async function coopOf(ctx: Ctx): Promise<Cooperative> {
+  const coop = await db().Cooperative.findByPk(ctx.cooperativeId, { transaction: ctx.transaction });
+  if (!coop) throw notFound('Your cooperative');
   return coop;
 }
 
@@ -58,12 +66,14 @@ function boundary(value: string, zone: string): Date {
 }
 
 /** Active slots (booked or done) overlapping [from, to). */
-export async function listSlots({ user, from, to }: { user: SessionUser; from: string; to: string }): Promise<SlotDto[]> {
+export async function listSlots(ctx: Ctx, { from, to }: { from: string; to: string }): Promise<SlotDto[]> {
+  authorize(ctx.actor, 'slot.list');
   const { BoilSlot, Household } = db();
-  const coop = await coopOf(user.cooperativeId);
+  const coop = await coopOf(ctx);
   const slots = await BoilSlot.findAll({
+    transaction: ctx.transaction,
     where: {
-      cooperativeId: user.cooperativeId,
+      cooperativeId: ctx.cooperativeId,
       status: { [Op.ne]: 'cancelled' },
       startsAt: { [Op.lt]: boundary(to, coop.timeZone) },
       endsAt: { [Op.gt]: boundary(from, coop.timeZone) },
@@ -71,15 +81,17 @@ export async function listSlots({ user, from, to }: { user: SessionUser; from: s
     include: [{ model: Household, as: 'household', attributes: ['name'] }],
     order: [['startsAt', 'ASC']],
   });
-  return slots.map((s) => toDto(s, (s as unknown as { household: { name: string } }).household.name, user, coop.timeZone));
+  return slots.map((s) => toDto(s, (s as unknown as { household: { name: string } }).household.name, ctx.actor, coop.timeZone));
 }
 
 /** The next booked slots, for the Today page (one household's, or everyone's). */
-export async function listUpcomingSlots({ cooperativeId, householdId, limit }: { cooperativeId: string; householdId: string | null; limit: number }) {
+export async function listUpcomingSlots(ctx: Ctx, { householdId, limit }: { householdId: string | null; limit: number }) {
+  authorize(ctx.actor, 'slot.list');
   const { BoilSlot, Household } = db();
   const rows = await BoilSlot.findAll({
+    transaction: ctx.transaction,
     where: {
-      cooperativeId,
+      cooperativeId: ctx.cooperativeId,
       status: 'booked',
       endsAt: { [Op.gt]: new Date() },
       ...(householdId ? { householdId } : {}),
@@ -103,13 +115,13 @@ interface Window {
 
 /** The co-op's booking rules for one slot; answers 422 naming the field at fault. */
 async function checkRules(
-  { user, coop, w, transaction }: { user: SessionUser; coop: Cooperative; w: Window; transaction: Transaction },
+  { actor, coop, w, transaction }: { actor: Actor; coop: Cooperative; w: Window; transaction: Transaction },
 ) {
   const minutes = (w.endsAt.getTime() - w.startsAt.getTime()) / 60_000;
   if (minutes < coop.slotMinMinutes || minutes > coop.slotMaxMinutes) {
-    throw new ApiError(422, 'That slot length is outside the co-op’s rules.', {
+    throw invalid('That slot length is outside the co-op’s rules.', {
       endsAt: `A slot lasts from ${coop.slotMinMinutes / 60} to ${coop.slotMaxMinutes / 60} hours (this one: ${+(minutes / 60).toFixed(2)} h).`,
-    });
+    }, 'slot_length');
   }
   const zone = coop.timeZone;
   const startDay = localDay(w.startsAt, zone);
@@ -124,28 +136,26 @@ async function checkRules(
     transaction,
   });
   if (!season) {
-    throw new ApiError(422, 'Slots can only be booked inside an open season.', {
-      startsAt: 'This time is outside the season’s dates.',
-    });
+    throw invalid('Slots can only be booked inside an open season.', { startsAt: 'This time is outside the season’s dates.' }, 'outside_season');
   }
-  if (!isStaff(user)) {
+  if (!can(actor, 'slot.bookAnyHour')) {
     if (w.startsAt.getTime() < Date.now()) {
-      throw new ApiError(422, 'That time has already passed.', { startsAt: 'Choose a start in the future.' });
+      throw invalid('That time has already passed.', { startsAt: 'Choose a start in the future.' }, 'slot_in_past');
     }
     const opens = clockMinutes(coop.opensAt);
     const closes = clockMinutes(coop.closesAt);
     const endMin = localMinutes(w.endsAt, zone) || 24 * 60;
     if (startDay !== endDay || localMinutes(w.startsAt, zone) < opens || endMin > closes) {
-      throw new ApiError(422, 'Members book inside the sugarhouse hours.', {
+      throw invalid('Members book inside the sugarhouse hours.', {
         startsAt: `The sugarhouse is open ${clockLabel(coop.opensAt)}–${clockLabel(coop.closesAt)}; a sugarmaker can book other hours.`,
-      });
+      }, 'outside_hours');
     }
   }
   return season;
 }
 
 /** Turns the database's refusal of an overlap into a 409 naming the slot in the way. */
-async function conflictError(evaporatorId: string, w: Window, excludeId: string | null, zone: string): Promise<ApiError> {
+async function conflictError(evaporatorId: string, w: Window, excludeId: string | null, zone: string): Promise<AppError> {
   const { BoilSlot, Household } = db();
   const other = await BoilSlot.findOne({
     where: {
@@ -157,17 +167,16 @@ async function conflictError(evaporatorId: string, w: Window, excludeId: string 
     },
     include: [{ model: Household, as: 'household', attributes: ['name'] }],
   });
-  if (!other) return new ApiError(409, 'That time was just taken by another booking. Pick another time.');
+  if (!other) return conflict('That time was just taken by another booking. Pick another time.', 'slot_conflict');
   const name = (other as unknown as { household: { name: string } }).household.name;
   const when = formatSlotRange(other.startsAt, other.endsAt, zone);
-  return new ApiError(409, `That time overlaps the ${name} household’s slot (${when}). Pick a time around it.`, { startsAt: 'This time is taken.' }, {
-    conflict: { id: other.id, householdName: name, startsAt: toZonedIso(other.startsAt, zone), endsAt: toZonedIso(other.endsAt, zone) },
+  return conflict(`That time overlaps the ${name} household’s slot (${when}). Pick a time around it.`, 'slot_conflict', {
+    fields: { startsAt: 'This time is taken.' },
+    details: { conflict: { id: other.id, householdName: name, startsAt: toZonedIso(other.startsAt, zone), endsAt: toZonedIso(other.endsAt, zone) } },
   });
 }
 
-const isOverlap = (err: unknown) =>
-  (err as { name?: string })?.name === 'SequelizeExclusionConstraintError' ||
-  (err as { parent?: { code?: string } })?.parent?.code === '23P01';
+const isOverlap = (err: unknown) => sqlState(err) === '23P01';
 
 type SlotMailKind = 'booked' | 'moved' | 'cancelled';
 
@@ -216,28 +225,25 @@ async function queueSlotMail(kind: SlotMailKind, slot: BoilSlot, coop: Cooperati
 
 async function householdName(householdId: string, cooperativeId: string, transaction: Transaction): Promise<string> {
   const h = await db().Household.findOne({ where: { id: householdId, cooperativeId }, transaction });
-  if (!h) throw new ApiError(422, 'Some fields need another look.', { householdId: 'Choose one of your co-op’s households.' });
+  if (!h) throw invalidField('householdId', 'Choose one of your co-op’s households.');
   return h.name;
 }
 
 /** Books a slot in one transaction: rules, the overlap constraint, and the confirmation e-mail. */
-export async function createSlot({ user, input }: { user: SessionUser; input: SlotInput }): Promise<SlotDto> {
-  const { BoilSlot, Evaporator, sequelize } = db();
-  const householdId = input.householdId ?? user.householdId ?? undefined;
-  if (!isStaff(user) && householdId !== user.householdId) {
-    throw new ApiError(403, 'Members book slots for their own household only.');
-  }
-  if (!householdId) {
-    throw new ApiError(422, 'Some fields need another look.', { householdId: 'Choose the household that crews this boil.' });
-  }
+export async function createSlot(ctx: Ctx, input: SlotInput): Promise<SlotDto> {
+  const { BoilSlot, Evaporator } = db();
+  const { actor } = ctx;
+  const householdId = input.householdId ?? (actor.kind === 'person' ? actor.householdId : null) ?? undefined;
+  authorize(actor, 'slot.create', { householdId: householdId ?? null }, 'Members book slots for their own household only.');
+  if (!householdId) throw invalidField('householdId', 'Choose the household that crews this boil.');
   const w = { startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt) };
-  const coop = await coopOf(user.cooperativeId);
+  const coop = await coopOf(ctx);
   try {
-    const dto = await sequelize.transaction(async (transaction) => {
+    const dto = await withTransaction(ctx, async ({ transaction }) => {
       const name = await householdName(householdId!, coop.id, transaction);
       const evaporator = await Evaporator.findOne({ where: { id: input.evaporatorId, cooperativeId: coop.id }, transaction });
-      if (!evaporator) throw new ApiError(422, 'Some fields need another look.', { evaporatorId: 'Choose one of your co-op’s evaporators.' });
-      const season = await checkRules({ user, coop, w, transaction });
+      if (!evaporator) throw invalidField('evaporatorId', 'Choose one of your co-op’s evaporators.');
+      const season = await checkRules({ actor, coop, w, transaction });
       const slot = await BoilSlot.create(
         {
           cooperativeId: coop.id,
@@ -249,12 +255,12 @@ export async function createSlot({ user, input }: { user: SessionUser; input: Sl
           crew: input.crew ?? [],
           expectedSapL: input.expectedSapL ?? null,
           note: input.note || null,
-          bookedById: user.id,
+          bookedById: actorUserId(ctx),
         },
         { transaction },
       );
       await queueSlotMail('booked', slot, coop, name, transaction);
-      return toDto(slot, name, user, coop.timeZone);
+      return toDto(slot, name, actor, coop.timeZone);
     });
     broadcast(coop.id, 'slots:changed', { id: dto.id });
     return dto;
@@ -264,24 +270,21 @@ export async function createSlot({ user, input }: { user: SessionUser; input: Sl
   }
 }
 
-async function loadOwnSlot(user: SessionUser, id: string, transaction: Transaction) {
-  const slot = await db().BoilSlot.findOne({ where: { id, cooperativeId: user.cooperativeId }, transaction, lock: transaction.LOCK.UPDATE });
-  if (!slot) throw new ApiError(404, 'That boil slot was not found.');
-  if (!isStaff(user) && slot.householdId !== user.householdId) {
-    throw new ApiError(403, 'Members change only their own household’s slots.');
-  }
-  if (slot.status !== 'booked') throw new ApiError(409, `That slot is ${slot.status} and can no longer be changed.`);
+async function loadOwnSlot(ctx: Ctx, id: string, transaction: Transaction) {
+  const slot = await db().BoilSlot.findOne({ where: { id, cooperativeId: ctx.cooperativeId }, transaction, lock: transaction.LOCK.UPDATE });
+  if (!slot) throw notFound('That boil slot', 'slot_not_found');
+  authorize(ctx.actor, 'slot.change', slot, 'Members change only their own household’s slots.');
+  if (slot.status !== 'booked') throw conflict(`That slot is ${slot.status} and can no longer be changed.`, 'slot_closed');
   return slot;
 }
 
 /** Moves a slot or changes its crew or note; a move re-checks the rules and e-mails the household. */
-export async function updateSlot({ user, id, patch }: { user: SessionUser; id: string; patch: SlotPatch }): Promise<SlotDto> {
-  const { sequelize } = db();
-  const coop = await coopOf(user.cooperativeId);
+export async function updateSlot(ctx: Ctx, id: string, patch: SlotPatch): Promise<SlotDto> {
+  const coop = await coopOf(ctx);
   let target: { evaporatorId: string; w: Window } | null = null;
   try {
-    const dto = await sequelize.transaction(async (transaction) => {
-      const slot = await loadOwnSlot(user, id, transaction);
+    const dto = await withTransaction(ctx, async ({ transaction, actor }) => {
+      const slot = await loadOwnSlot(ctx, id, transaction);
       const name = await householdName(slot.householdId, coop.id, transaction);
       const moved =
         patch.startsAt !== undefined &&
@@ -291,7 +294,7 @@ export async function updateSlot({ user, id, patch }: { user: SessionUser; id: s
       if (moved) {
         const w = { startsAt: new Date(patch.startsAt!), endsAt: new Date(patch.endsAt!) };
         target = { evaporatorId: slot.evaporatorId, w };
-        const season = await checkRules({ user, coop, w, transaction });
+        const season = await checkRules({ actor, coop, w, transaction });
         Object.assign(changes, { startsAt: w.startsAt, endsAt: w.endsAt, seasonId: season.id });
       }
       if (patch.crew !== undefined) changes.crew = patch.crew;
@@ -299,7 +302,7 @@ export async function updateSlot({ user, id, patch }: { user: SessionUser; id: s
       if (patch.expectedSapL !== undefined) changes.expectedSapL = patch.expectedSapL;
       await slot.update(changes, { transaction });
       if (moved) await queueSlotMail('moved', slot, coop, name, transaction);
-      return toDto(slot, name, user, coop.timeZone);
+      return toDto(slot, name, actor, coop.timeZone);
     });
     broadcast(coop.id, 'slots:changed', { id });
     return dto;
@@ -311,22 +314,21 @@ export async function updateSlot({ user, id, patch }: { user: SessionUser; id: s
 }
 
 /** Cancels a slot (members: their own, and not later than the co-op's notice); frees its time. */
-export async function cancelSlot({ user, id }: { user: SessionUser; id: string }): Promise<SlotDto> {
-  const { sequelize } = db();
-  const coop = await coopOf(user.cooperativeId);
-  const dto = await sequelize.transaction(async (transaction) => {
-    const slot = await loadOwnSlot(user, id, transaction);
-    if (!isStaff(user) && slot.startsAt.getTime() - Date.now() < coop.cancelNoticeHours * 3_600_000) {
-      throw new ApiError(
-        422,
+export async function cancelSlot(ctx: Ctx, id: string): Promise<SlotDto> {
+  const coop = await coopOf(ctx);
+  const dto = await withTransaction(ctx, async ({ transaction, actor }) => {
+    const slot = await loadOwnSlot(ctx, id, transaction);
+    if (!can(actor, 'slot.cancelLate') && slot.startsAt.getTime() - Date.now() < coop.cancelNoticeHours * 3_600_000) {
+      throw invalid(
         `Members can cancel up to ${coop.cancelNoticeHours} hours before a slot starts; ask a sugarmaker to cancel this one.`,
         { startsAt: 'Too close to the start to cancel.' },
+        'cancel_notice',
       );
     }
     const name = await householdName(slot.householdId, coop.id, transaction);
-    await slot.update({ status: 'cancelled', cancelledAt: new Date(), cancelledById: user.id }, { transaction });
+    await slot.update({ status: 'cancelled', cancelledAt: new Date(), cancelledById: actorUserId(ctx) }, { transaction });
     await queueSlotMail('cancelled', slot, coop, name, transaction);
-    return toDto(slot, name, user, coop.timeZone);
+    return toDto(slot, name, actor, coop.timeZone);
   });
   broadcast(coop.id, 'slots:changed', { id });
   return dto;

@@ -1,20 +1,16 @@
-import type { Role } from '@/lib/roles';
+import 'next-auth';
+import 'next-auth/jwt';
 
 declare module 'next-auth' {
   interface User {
     id: string;
-    role: Role;
-    cooperativeId: string;
-    householdId: string | null;
+    sessionVersion: number;
   }
   interface Session {
     user: {
       id: string;
       name: string;
       email: string;
-      role: Role;
-      cooperativeId: string;
-      householdId: string | null;
     };
   }
 }
@@ -22,8 +18,7 @@ declare module 'next-auth' {
 declare module 'next-auth/jwt' {
   interface JWT {
     uid: string;
-    role: Role;
-    cooperativeId: string;
-    householdId: string | null;
+    /** The person's session_version at sign-in; a raised one ends this session. */
+    sv: number;
   }
 }

@@ -1,6 +1,6 @@
 import Link from 'next/link';
 import type { ReactNode } from 'react';
-import { requireUser } from '@/lib/auth/session';
+import { requireContext } from '@/lib/server/context';
 import { getCooperative } from '@/lib/coop';
 import { AppNav } from '@/components/shell/app-nav';
 import { NAV, ROLE_LABEL } from '@/components/shell/nav-items';
@@ -9,8 +9,9 @@ import { Logo } from '@/components/brand/logo';
 import { Badge } from '@/components/ui/badge';
 
 export default async function AppLayout({ children }: { children: ReactNode }) {
-  const user = await requireUser({ onFail: 'redirect' });
-  const coop = await getCooperative({ cooperativeId: user.cooperativeId });
+  const ctx = await requireContext({ onFail: 'redirect' });
+  const user = ctx.actor;
+  const coop = await getCooperative(ctx);
   return (
     <div className="min-h-dvh">
       <header className="border-b border-birch-line bg-birch-raised">

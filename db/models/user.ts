@@ -19,6 +19,8 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   /** SHA-256 of the one-time invitation token sent in the welcome e-mail. */
   declare inviteTokenHash: CreationOptional<string | null>;
   declare inviteExpiresAt: CreationOptional<Date | null>;
+  /** Raised to end every session of this person (role, household or password change, sign out everywhere). */
+  declare sessionVersion: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -34,6 +36,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
         inviteTokenHash: { type: DataTypes.TEXT, allowNull: true },
         inviteExpiresAt: { type: DataTypes.DATE, allowNull: true },
+        sessionVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -33,36 +33,22 @@ export const authOptions: NextAuthOptions = {
         const user = await User.findOne({ where: { email: parsed.data.email } });
         const ok = await bcrypt.compare(parsed.data.password, user?.passwordHash ?? fallbackHash());
         if (!user || !user.passwordHash || !ok) return null;
-        return {
-          id: user.id,
-          name: user.name,
-          email: user.email,
-          role: user.role,
-          cooperativeId: user.cooperativeId,
-          householdId: user.householdId,
-        };
+        return { id: user.id, name: user.name, email: user.email, sessionVersion: user.sessionVersion };
       },
     }),
   ],
+  // The token names the person and the generation of their sessions, nothing more: role,
+  // household and cooperative are read from the database on every request (lib/server/context).
   callbacks: {
     async jwt({ token, user }) {
       if (user) {
         token.uid = user.id;
-        token.role = user.role;
-        token.cooperativeId = user.cooperativeId;
-        token.householdId = user.householdId;
+        token.sv = user.sessionVersion;
       }
       return token;
     },
     async session({ session, token }) {
-      session.user = {
-        id: token.uid,
-        name: token.name ?? '',
-        email: token.email ?? '',
-        role: token.role,
-        cooperativeId: token.cooperativeId,
-        householdId: token.householdId,
-      };
+      session.user = { id: token.uid, name: token.name ?? '', email: token.email ?? '' };
       return session;
     },
   },

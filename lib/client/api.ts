@@ -5,6 +5,8 @@ export class ApiClientError extends Error {
     message: string,
     public readonly fields: Record<string, string> = {},
     public readonly body: Record<string, unknown> = {},
+    /** The API's machine-readable error code (`slot_conflict`, `invalid_input`, …), or `unreadable`. */
+    public readonly code: string = typeof body.code === 'string' ? body.code : 'unknown',
   ) {
     super(message);
   }
@@ -12,7 +14,19 @@ export class ApiClientError extends Error {
 
 async function parse(res: Response) {
   const text = await res.text();
-  const body = text ? JSON.parse(text) : null;
+  let body: any = null;
+  try {
+    body = text ? JSON.parse(text) : null;
+  } catch {
+    // A proxy's error page, a crash before the handler: say what happened instead of a SyntaxError.
+    throw new ApiClientError(
+      res.status,
+      res.ok ? 'Brixhouse sent an answer this page cannot read. Reload and try again.' : `The request failed (${res.status}). Try again in a moment.`,
+      {},
+      {},
+      'unreadable',
+    );
+  }
   if (!res.ok) {
     const err = body?.error ?? {};
     throw new ApiClientError(res.status, err.message ?? `The request failed (${res.status}).`, err.fields ?? {}, err);

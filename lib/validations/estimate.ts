@@ -1,11 +1,10 @@
 import { z } from 'zod';
+import { decimalString } from '@/lib/validation/fields';
 
 const num = (name: string, min: number, max: number, unit: string) =>
-  z.coerce
-    .number({ message: `${name} must be a number.` })
-    .refine(Number.isFinite, `${name} must be a number.`)
-    .min(min, `${name} must be at least ${min} ${unit}.`)
-    .max(max, `${name} must be at most ${max} ${unit}.`);
+  decimalString(`${name} must be a number.`).pipe(
+    z.number().min(min, `${name} must be at least ${min} ${unit}.`).max(max, `${name} must be at most ${max} ${unit}.`),
+  );
 
 export const EstimateQuery = z.object({
   volumeL: num('volumeL', 0, 1_000_000, 'L'),

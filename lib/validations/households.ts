@@ -1,8 +1,9 @@
 import { z } from 'zod';
 import { ROLES } from '@/lib/roles';
+import { line } from '@/lib/validation/fields';
 
 export const HouseholdInput = z.object({
-  name: z.string().trim().min(1, 'Give the household a name.').max(120, 'Keep the name under 120 characters.'),
+  name: line({ min: 1, max: 120, label: 'The household name' }),
 });
 export type HouseholdInput = z.infer<typeof HouseholdInput>;
 
@@ -10,7 +11,7 @@ const roleEnum = z.enum(ROLES, { message: 'Choose coordinator, sugarmaker or mem
 
 export const PersonInput = z
   .object({
-    name: z.string().trim().min(1, 'Enter the person’s name.').max(120, 'Keep the name under 120 characters.'),
+    name: line({ min: 1, max: 120, label: 'The name' }),
     email: z.string().trim().toLowerCase().email('Enter an e-mail address like name@example.org.'),
     role: roleEnum,
     householdId: z.string().uuid('Choose a household.').nullish(),

@@ -1,15 +1,16 @@
 import { z } from 'zod';
+import { day, instant as instantField, line, text } from '@/lib/validation/fields';
 
-const instant = z.iso.datetime({ offset: true, message: 'Give a date and time with its offset, e.g. 2027-03-14T09:00:00-04:00.' });
+const instant = instantField();
 const crew = z
-  .array(z.string().trim().min(1, 'A crew name cannot be empty.').max(60, 'Keep each crew name under 60 characters.'))
+  .array(line({ min: 1, max: 60, label: 'A crew name' }))
   .max(12, 'At most 12 people in a crew.');
 const expectedSapL = z
   .number({ message: 'Expected sap is a number of litres.' })
   .min(0, 'Expected sap cannot be negative.')
   .max(100_000, 'That is more sap than an evaporator boils in a slot.')
   .nullable();
-const note = z.string().trim().max(500, 'Keep the note under 500 characters.').nullable();
+const note = text({ max: 500, label: 'The note' }).nullable();
 
 // Only compared when both are valid instants; a bad one already has its own message.
 const endsAfterStart = (s: { startsAt?: string; endsAt?: string }) => {
@@ -48,7 +49,7 @@ export const SlotPatch = z
   .refine(endsAfterStart, endMessage);
 export type SlotPatch = z.infer<typeof SlotPatch>;
 
-const boundary = z.union([z.iso.datetime({ offset: true }), z.iso.date()], {
+const boundary = z.union([instant, day()], {
   message: 'Give a day (YYYY-MM-DD) or a date and time with its offset.',
 });
 

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import { requireUser } from '@/lib/auth/session';
+import { requireContext } from '@/lib/server/context';
 import { getCooperative, listEvaporators, listHouseholdNames, listSeasons } from '@/lib/coop';
 import { DateTime } from 'luxon';
 import { clockLabel } from '@/lib/time';
@@ -9,13 +9,13 @@ import type { CalendarSetup } from '@/components/calendar/calendar-types';
 export const metadata: Metadata = { title: 'Boil calendar' };
 
 export default async function CalendarPage() {
-  const user = await requireUser({ onFail: 'redirect' });
-  const cooperativeId = user.cooperativeId;
+  const ctx = await requireContext({ onFail: 'redirect' });
+  const user = ctx.actor;
   const [coop, evaporators, seasons, households] = await Promise.all([
-    getCooperative({ cooperativeId }),
-    listEvaporators({ cooperativeId }),
-    listSeasons({ cooperativeId }),
-    listHouseholdNames({ cooperativeId }),
+    getCooperative(ctx),
+    listEvaporators(ctx),
+    listSeasons(ctx),
+    listHouseholdNames(ctx),
   ]);
   const staff = user.role === 'coordinator' || user.role === 'sugarmaker';
   const season = seasons.find((s) => s.status === 'open') ?? seasons.find((s) => s.status === 'planned') ?? null;

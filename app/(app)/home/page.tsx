@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { requireUser } from '@/lib/auth/session';
+import { requireContext } from '@/lib/server/context';
 import { getCooperative, listEvaporators, listSeasons } from '@/lib/coop';
 import { listUpcomingSlots } from '@/lib/slots';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
@@ -13,12 +13,13 @@ import { TodayQueueCard } from '@/components/queue/today-queue-card';
 export const metadata: Metadata = { title: 'Today' };
 
 export default async function HomePage() {
-  const user = await requireUser({ onFail: 'redirect' });
+  const ctx = await requireContext({ onFail: 'redirect' });
+  const user = ctx.actor;
   const [coop, seasons, evaporators, upcoming] = await Promise.all([
-    getCooperative({ cooperativeId: user.cooperativeId }),
-    listSeasons({ cooperativeId: user.cooperativeId }),
-    listEvaporators({ cooperativeId: user.cooperativeId }),
-    listUpcomingSlots({ cooperativeId: user.cooperativeId, householdId: user.role === 'member' ? user.householdId : null, limit: 5 }),
+    getCooperative(ctx),
+    listSeasons(ctx),
+    listEvaporators(ctx),
+    listUpcomingSlots(ctx, { householdId: user.role === 'member' ? user.householdId : null, limit: 5 }),
   ]);
   const open = seasons.find((s) => s.status === 'open');
   return (

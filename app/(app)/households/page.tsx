@@ -1,11 +1,11 @@
 import type { Metadata } from 'next';
-import { requireRole } from '@/lib/auth/session';
+import { requireContext } from '@/lib/server/context';
 import { HouseholdsManager } from '@/components/households/households-manager';
 
 export const metadata: Metadata = { title: 'Households' };
 
 export default async function HouseholdsPage() {
-  await requireRole(['coordinator'], { onFail: 'redirect' });
+  await requireContext({ roles: ['coordinator'], onFail: 'redirect' });
   return (
     <div className="flex flex-col gap-6">
       <div>

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import { requireRole } from '@/lib/auth/session';
+import { requireContext } from '@/lib/server/context';
 import { getSettings } from '@/lib/settings';
 import { SettingsForm } from '@/components/settings/settings-form';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
@@ -9,10 +9,10 @@ import { DisplayLinksManager } from '@/components/display/display-links-manager'
 export const metadata: Metadata = { title: 'Settings' };
 
 export default async function SettingsPage() {
-  const user = await requireRole(['coordinator'], { onFail: 'redirect' });
+  const ctx = await requireContext({ roles: ['coordinator'], onFail: 'redirect' });
   const [settings, displayLinks] = await Promise.all([
-    getSettings({ cooperativeId: user.cooperativeId }),
-    listDisplayLinks({ actor: user, cooperativeId: user.cooperativeId }),
+    getSettings(ctx),
+    listDisplayLinks({ actor: { id: ctx.actor.userId, role: ctx.actor.role }, cooperativeId: ctx.cooperativeId }),
   ]);
   return (
     <div className="flex flex-col gap-6">

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import { requireRole } from '@/lib/auth/session';
+import { requireContext } from '@/lib/server/context';
 import { getCooperative, listEvaporators } from '@/lib/coop';
 import { GRADE_CLASSES, GRADE_CLASS_INFO, formatBrix, formatVolume, standardPressureKPa } from '@/lib/sugar';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
@@ -11,10 +11,10 @@ import { DrawOffCalculator } from '@/components/sugarhouse/draw-off-calculator';
 export const metadata: Metadata = { title: 'Sugarhouse' };
 
 export default async function SugarhousePage() {
-  const user = await requireRole(['sugarmaker', 'coordinator'], { onFail: 'redirect' });
+  const ctx = await requireContext({ roles: ['sugarmaker', 'coordinator'], onFail: 'redirect' });
   const [coop, evaporators] = await Promise.all([
-    getCooperative({ cooperativeId: user.cooperativeId }),
-    listEvaporators({ cooperativeId: user.cooperativeId }),
+    getCooperative(ctx),
+    listEvaporators(ctx),
   ]);
   const units = coop.unitSystem;
   const elevation = units === 'us' ? `${Math.round(coop.elevationM / 0.3048).toLocaleString('en-US')} ft` : `${coop.elevationM} m`;

@@ -1,35 +1,33 @@
-import { NextResponse } from 'next/server';
-import { requireUser } from '@/lib/auth/session';
-import { ApiError, route } from '@/lib/api/errors';
+import { ZodError } from 'zod';
+import { badRequest } from '@/lib/server/errors';
+import { fieldErrors, readQuery } from '@/lib/server/http';
+import { route } from '@/lib/server/route';
 import { boilHours, sapToSyrupRatio, sugarKg, syrupLitres, waterToEvaporateL } from '@/lib/sugar';
 import { EstimateQuery } from '@/lib/validations/estimate';
 import { getCooperative, listEvaporators } from '@/lib/coop';
 
 /** Live preview for the drop-off form: the sugar in a lot and the syrup and boiling it means. */
-export const GET = route(async (req) => {
-  const user = await requireUser();
-  const params = Object.fromEntries(new URL(req.url).searchParams);
-  const parsed = EstimateQuery.safeParse(params);
-  if (!parsed.success) {
-    const fields = Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message]));
-    throw new ApiError(400, 'Check the volume and °Brix.', fields);
-  }
-  const [coop, evaporators] = await Promise.all([
-    getCooperative({ cooperativeId: user.cooperativeId }),
-    listEvaporators({ cooperativeId: user.cooperativeId }),
-  ]);
-  const { volumeL, brix } = parsed.data;
-  const syrupBrix = parsed.data.syrupBrix ?? coop.syrupBrix;
+export const GET = route(async ({ ctx, req }) => {
+  let q;
   try {
-    return NextResponse.json({
+    q = readQuery(req, EstimateQuery);
+  } catch (err) {
+    if (err instanceof ZodError) throw badRequest('Check the volume and °Brix.', 'invalid_input', { fields: fieldErrors(err) });
+    throw err;
+  }
+  const [coop, evaporators] = await Promise.all([getCooperative(ctx), listEvaporators(ctx)]);
+  const { volumeL, brix } = q;
+  const syrupBrix = q.syrupBrix ?? coop.syrupBrix;
+  try {
+    return {
       sugarKg: sugarKg(volumeL, brix),
       syrupL: syrupLitres(volumeL, brix, syrupBrix),
       waterL: waterToEvaporateL(volumeL, brix, syrupBrix),
       boilHours: evaporators[0] ? boilHours(volumeL, brix, evaporators[0].evaporationLph, syrupBrix) : null,
       ratio: sapToSyrupRatio(brix, { rule: 'mass-balance', syrupBrix }),
-    });
+    };
   } catch (err) {
-    if (err instanceof RangeError) throw new ApiError(400, err.message);
+    if (err instanceof RangeError) throw badRequest(err.message, 'out_of_range');
     throw err;
   }
 });

@@ -1,16 +1,10 @@
-import { NextResponse } from 'next/server';
-import { requireRole } from '@/lib/auth/session';
-import { readJson, route } from '@/lib/api/errors';
+import { json, readJson } from '@/lib/server/http';
+import { route } from '@/lib/server/route';
 import { createHousehold, listHouseholds } from '@/lib/households';
 import { HouseholdInput } from '@/lib/validations/households';
 
-export const GET = route(async () => {
-  const user = await requireRole(['coordinator']);
-  return NextResponse.json(await listHouseholds({ cooperativeId: user.cooperativeId }));
-});
+export const GET = route(async ({ ctx }) => listHouseholds(ctx), { roles: ['coordinator'] });
 
-export const POST = route(async (req) => {
-  const user = await requireRole(['coordinator']);
-  const input = HouseholdInput.parse(await readJson(req));
-  return NextResponse.json(await createHousehold({ cooperativeId: user.cooperativeId, input }), { status: 201 });
+export const POST = route(async ({ ctx, req }) => json(await createHousehold(ctx, await readJson(req, HouseholdInput)), 201), {
+  roles: ['coordinator'],
 });

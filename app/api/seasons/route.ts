@@ -1,9 +1,4 @@
-import { NextResponse } from 'next/server';
-import { requireUser } from '@/lib/auth/session';
-import { route } from '@/lib/api/errors';
+import { route } from '@/lib/server/route';
 import { listSeasons } from '@/lib/coop';
 
-export const GET = route(async () => {
-  const user = await requireUser();
-  return NextResponse.json(await listSeasons({ cooperativeId: user.cooperativeId }));
-});
+export const GET = route(async ({ ctx }) => listSeasons(ctx));

@@ -1,11 +1,11 @@
-import { NextResponse } from 'next/server';
 import bcrypt from 'bcryptjs';
-import { readJson, route } from '@/lib/api/errors';
+import { readJson } from '@/lib/server/http';
+import { publicRoute } from '@/lib/server/route';
 import { acceptInvitation } from '@/lib/households';
 import { AcceptInvitation } from '@/lib/validations/households';
 
-export const POST = route(async (req) => {
-  const input = AcceptInvitation.parse(await readJson(req));
+export const POST = publicRoute(async ({ req }) => {
+  const input = await readJson(req, AcceptInvitation);
   const passwordHash = await bcrypt.hash(input.password, 10);
-  return NextResponse.json(await acceptInvitation({ token: input.token, passwordHash }));
+  return acceptInvitation({ token: input.token, passwordHash });
 });
