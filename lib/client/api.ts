@@ -12,9 +12,10 @@ export class ApiClientError extends Error {
   }
 }
 
-async function parse(res: Response) {
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- the caller names the answer's type
+async function parse(res: Response): Promise<any> {
   const text = await res.text();
-  let body: any = null;
+  let body: { error?: { message?: string; fields?: Record<string, string> } } | null;
   try {
     body = text ? JSON.parse(text) : null;
   } catch {
@@ -29,7 +30,7 @@ async function parse(res: Response) {
   }
   if (!res.ok) {
     const err = body?.error ?? {};
-    throw new ApiClientError(res.status, err.message ?? `The request failed (${res.status}).`, err.fields ?? {}, err);
+    throw new ApiClientError(res.status, err.message ?? `The request failed (${res.status}).`, err.fields ?? {}, err as Record<string, unknown>);
   }
   return body;
 }
