@@ -31,7 +31,7 @@ export default async function HomePage() {
         </p>
       </div>
       <div className="grid gap-6 md:grid-cols-2">
-        <TodayQueueCard cooperativeId={user.cooperativeId} householdId={user.role === 'member' ? user.householdId : null} unitSystem={coop.unitSystem} timeZone={coop.timeZone} />
+        <TodayQueueCard cooperativeId={ctx.cooperativeId} householdId={user.role === 'member' ? user.householdId : null} unitSystem={coop.unitSystem} timeZone={coop.timeZone} />
         <Card>
           <CardHeader>
             <CardTitle>{user.role === 'member' ? 'Your next boil slots' : 'Next boil slots'}</CardTitle>
