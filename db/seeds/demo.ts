@@ -4,6 +4,7 @@ import type { Transaction } from 'sequelize';
 import { db } from '@/db/models';
 import { seedDeliveries } from './deliveries';
 import { seedRuns } from './runs';
+import { seedLedger } from './ledger';
 
 export const DEMO_PASSWORD = 'syrup-season';
 export const DEMO_TIME_ZONE = 'America/New_York';
@@ -138,6 +139,7 @@ export async function seedDemo({ now = new Date() }: { now?: Date } = {}) {
     await m.BoilSlot.bulkCreate(slots, { transaction });
     await seedDeliveries({ transaction, cooperativeId, zone: DEMO_TIME_ZONE, now, openSeason: open, lastSeason: last, households, staffIds: staff.filter((s) => s.role === 'sugarmaker').map((s) => s.id) });
     await seedRuns({ transaction, cooperativeId, zone: DEMO_TIME_ZONE, now, elevationM: coop.elevationM, evaporator, openSeason: open, lastSeason: last, staffIds: staff.filter((s) => s.role === 'sugarmaker').map((s) => s.id) });
+    await seedLedger({ transaction, cooperativeId, zone: DEMO_TIME_ZONE, openSeason: open, lastSeason: last, households, coordinatorId: staff.find((s) => s.role === 'coordinator')!.id });
 
     return { cooperativeId, seasonId: open.id, evaporatorId: evaporator.id };
   });
