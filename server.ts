@@ -2,7 +2,6 @@ import { createServer } from 'node:http';
 import next from 'next';
 import { Server } from 'socket.io';
 import { createAdapter } from '@socket.io/postgres-adapter';
-import pg from 'pg';
 import { parse as parseCookie } from 'cookie';
 import { getToken } from 'next-auth/jwt';
 import { env } from '@/lib/env';
@@ -13,6 +12,7 @@ import { startStatementWorker } from '@/lib/ledger/statement-mail';
 import { getSequelize } from '@/db';
 import { displayRoom, findDisplayLink } from '@/lib/display/tokens';
 import { sendCurrentQueue, startQueueBroadcaster } from '@/lib/queue/live';
+import { createAdapterPool } from '@/lib/server/adapter-pool';
 
 async function main() {
   const e = env();
@@ -34,9 +34,14 @@ async function main() {
   // reader, then the person as the database has them now (exists, session version current).
   const io = new Server(server, { path: '/realtime', serveClient: false });
   // Events reach the sockets of every server process that shares the database.
-  const adapterPool = new pg.Pool({ connectionString: e.DATABASE_URL, max: 3 });
-  adapterPool.on('error', (err) => console.error('realtime adapter:', err.message));
-  io.adapter(createAdapter(adapterPool, { tableName: 'socket_io_attachments' }));
+  // Its listening connection comes back after a database restart (see createAdapterPool).
+  const adapterPool = createAdapterPool(e.DATABASE_URL);
+  io.adapter(
+    createAdapter(adapterPool, {
+      tableName: 'socket_io_attachments',
+      errorHandler: (err) => console.error('realtime adapter:', err.message),
+    }),
+  );
   io.use(async (socket, nextFn) => {
     try {
       // A sugarhouse screen opened by a display link: read-only, its co-op's queue only.

@@ -2,10 +2,15 @@ import { getSequelize } from '@/db';
 import { createMigrator } from '@/db/migrator';
 import { db } from '@/db/models';
 import { seedDemo, truncateAll } from '@/db/seeds/demo';
+import { assertDisposable } from '@/db/guard';
 
-/** npm run db:migrate | db:rollback [-- --to 0] | db:seed [-- --if-empty | --reset] */
+/**
+ * npm run db:migrate | db:rollback [-- --to 0] | db:seed [-- --reset]. Emptying commands
+ * (`seed --reset`, `rollback --to 0`) touch only a database named …_test unless `--force`.
+ */
 async function main() {
   const [command, ...args] = process.argv.slice(2);
+  const force = args.includes('--force');
   const sequelize = getSequelize();
   const migrator = createMigrator(sequelize, { quiet: args.includes('--quiet') });
   try {
@@ -14,11 +19,12 @@ async function main() {
       console.log(done.length ? `Applied ${done.length} migration(s).` : 'Database is up to date.');
     } else if (command === 'rollback') {
       const toZero = args.includes('--to') && args[args.indexOf('--to') + 1] === '0';
+      if (toZero) assertDisposable(sequelize, 'roll back every migration of', { force });
       const undone = await migrator.down(toZero ? { to: 0 } : undefined);
       console.log(`Rolled back ${undone.length} migration(s).`);
     } else if (command === 'seed') {
       const { Cooperative } = db();
-      if (args.includes('--reset')) await truncateAll();
+      if (args.includes('--reset')) await truncateAll({ force });
       else if ((await Cooperative.count()) > 0) {
         console.log('Demo data already loaded; leaving the database as it is.');
         return;
@@ -26,7 +32,7 @@ async function main() {
       await seedDemo();
       console.log('Loaded the demo co-op (Larkspur Hollow Sugar Cooperative).');
     } else {
-      console.error('usage: db/cli.ts migrate | rollback [--to 0] | seed [--reset]');
+      console.error('usage: db/cli.ts migrate | rollback [--to 0] [--force] | seed [--reset] [--force]');
       process.exitCode = 2;
     }
   } finally {

@@ -22,6 +22,19 @@ export function clockMinutes(hhmm: string): number {
   return h * 60 + m;
 }
 
+/**
+ * The moment a wall clock in `day`'s zone shows `clock` ('HH:MM[:SS]' or minutes after midnight;
+ * 24:00 is the next midnight) on `day`'s date. Clock time, not time elapsed since midnight: on the
+ * days the clocks change, 09:00 stays 09:00 (midnight plus 540 minutes would be 10:00 in spring and
+ * 08:00 in autumn). A time the spring change skips (02:30) moves forward by the gap.
+ */
+export function atClock(day: DateTime, clock: string | number): DateTime {
+  const minutes = typeof clock === 'number' ? clock : clockMinutes(clock);
+  const date = day.startOf('day').plus({ days: Math.floor(minutes / 1440) });
+  const m = ((minutes % 1440) + 1440) % 1440;
+  return date.set({ hour: Math.floor(m / 60), minute: m % 60, second: 0, millisecond: 0 });
+}
+
 /** 'HH:MM' of a time-of-day column value. */
 export const clockLabel = (hhmm: string) => hhmm.slice(0, 5);
 

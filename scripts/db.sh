@@ -1,12 +1,13 @@
 #!/usr/bin/env bash
 # The project's private PostgreSQL cluster: installed from Debian when missing, its data in
-# .data/pg, listening on 127.0.0.1 only. Usage: db.sh start | stop | status | reset DBNAME
+# .data/pg, listening on 127.0.0.1 only. Usage: db.sh start | stop | restart | status | reset DBNAME [--force]
+# PG_DATA_DIR puts a cluster elsewhere (the tests start a scratch one to restart it).
 set -euo pipefail
 source "$(dirname "$0")/lib.sh"
 
 PGBIN=$(ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -n 1 || true)
-PG_DATA="$DATA_DIR/pg"
-PG_SOCK="$DATA_DIR/pg-socket"
+PG_DATA=${PG_DATA_DIR:-$DATA_DIR/pg}
+PG_SOCK="$PG_DATA-socket"
 
 if [ "$(id -u)" -eq 0 ]; then RUN=(runuser -u postgres --); SUPER=postgres; else RUN=(); SUPER=$(id -un); fi
 
@@ -44,7 +45,14 @@ start() {
       --auth-local=peer --auth-host=scram-sha-256 > "$DATA_DIR/initdb.log"
   fi
   [ "$(id -u)" -eq 0 ] && install -d -o postgres -g postgres -m 700 "$PG_SOCK"
-  if ! "${RUN[@]}" "$PGBIN/pg_ctl" -D "$PG_DATA" status > /dev/null 2>&1; then
+  if "${RUN[@]}" "$PGBIN/pg_ctl" -D "$PG_DATA" status > /dev/null 2>&1; then
+    local running; running=$(sed -n 4p "$PG_DATA/postmaster.pid")
+    if [ "$running" != "$PG_PORT" ]; then
+      echo "This clone's PostgreSQL is running on port $running, not on PG_PORT=$PG_PORT; stop it first (npm run db:down)." >&2
+      exit 1
+    fi
+  else
+    require_free_port PG_PORT "$PG_PORT"
     log "Starting PostgreSQL on 127.0.0.1:$PG_PORT"
     "${RUN[@]}" "$PGBIN/pg_ctl" -D "$PG_DATA" -l "$PG_DATA/server.log" -w -s \
       -o "-c listen_addresses=127.0.0.1 -c port=$PG_PORT -c unix_socket_directories=$PG_SOCK -c max_connections=200" start
@@ -63,9 +71,14 @@ stop() {
   fi
 }
 
-# Drop and re-create one database (the tests' own), so a run starts from nothing.
+# Drop and re-create one database (the tests' own), so a run starts from nothing. Only a
+# database whose name ends in _test, unless --force.
 reset() {
   local db=$1
+  if [[ "$db" != *_test ]] && [ "${2:-}" != "--force" ]; then
+    echo "Refusing to reset the database \"$db\": only a database whose name ends in _test is reset without --force." >&2
+    exit 1
+  fi
   psql_super -c "DROP DATABASE IF EXISTS \"$db\" WITH (FORCE)"
   psql_super -c "CREATE DATABASE \"$db\" OWNER $PG_USER"
 }
@@ -73,7 +86,8 @@ reset() {
 case "${1:-start}" in
   start) start ;;
   stop) stop ;;
+  restart) "${RUN[@]}" "$PGBIN/pg_ctl" -D "$PG_DATA" -w -s -m fast restart > /dev/null ;;
   status) "${RUN[@]}" "$PGBIN/pg_ctl" -D "$PG_DATA" status ;;
-  reset) reset "$2" ;;
-  *) echo "usage: db.sh start|stop|status|reset DBNAME" >&2; exit 2 ;;
+  reset) reset "$2" "${3:-}" ;;
+  *) echo "usage: db.sh start|stop|restart|status|reset DBNAME [--force]" >&2; exit 2 ;;
 esac

@@ -5,14 +5,15 @@ source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
 ensure_node_modules
 bash scripts/db.sh start
-export NODE_ENV=development PORT=${PORT:-3000}
+export NODE_ENV=development PORT
 export DATABASE_URL=${DATABASE_URL:-$(database_url brixhouse_dev)}
-export SMTP_PORT=${SMTP_PORT:-1025}
+export SMTP_PORT
 export APP_URL=${APP_URL:-http://127.0.0.1:$PORT} NEXTAUTH_URL=${APP_URL:-http://127.0.0.1:$PORT}
-bash scripts/mail.sh start maildev "$SMTP_PORT" "${MAIL_WEB_PORT:-1080}"
+require_free_port PORT "$PORT"
+bash scripts/mail.sh start maildev "$SMTP_PORT" "$MAIL_WEB_PORT"
 if [ -z "${S3_ENDPOINT:-}" ]; then
-  bash scripts/s3.sh start s3 "${S3_PORT:-9200}" "$S3_BUCKET"
-  export S3_ENDPOINT=http://127.0.0.1:${S3_PORT:-9200}
+  bash scripts/s3.sh start s3 "$S3_PORT" "$S3_BUCKET"
+  export S3_ENDPOINT=http://127.0.0.1:$S3_PORT
 fi
 payment_env "${PAY_PORT:-9400}"
 bash scripts/pay.sh start pay-fake "$PAY_PORT"

@@ -8,16 +8,15 @@ ensure_node_modules
 bash scripts/db.sh start
 
 export NODE_ENV=production
-export PORT=${PORT:-3000}
+export PORT
 export DATABASE_URL=${DATABASE_URL:-$(database_url brixhouse_dev)}
-export SMTP_PORT=${SMTP_PORT:-1025}
-MAIL_WEB_PORT=${MAIL_WEB_PORT:-1080}
+export SMTP_PORT
 export APP_URL=${APP_URL:-http://127.0.0.1:$PORT}
 export NEXTAUTH_URL=$APP_URL
 if [ -z "${NEXTAUTH_SECRET:-}" ]; then
-  [ -f "$DATA_DIR/nextauth-secret" ] || node -e "console.log(require('crypto').randomBytes(32).toString('base64url'))" > "$DATA_DIR/nextauth-secret"
-  export NEXTAUTH_SECRET=$(cat "$DATA_DIR/nextauth-secret")
+  export NEXTAUTH_SECRET=$(secret_file "$DATA_DIR/nextauth-secret")
 fi
+require_free_port PORT "$PORT"
 
 log "Starting maildev (SMTP 127.0.0.1:$SMTP_PORT, inbox http://127.0.0.1:$MAIL_WEB_PORT)"
 bash scripts/mail.sh start maildev "$SMTP_PORT" "$MAIL_WEB_PORT"

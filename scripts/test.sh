@@ -54,6 +54,7 @@ fi
 
 log "Starting the server on $APP_URL"
 stop_bg test-server
+require_free_port E2E_PORT "$E2E_PORT" || { echo "0 passed, 1 failed"; exit 1; }
 start_bg test-server node --import tsx server.ts
 wait_for_url "$APP_URL/api/health" 200 || { tail -n 40 "$DATA_DIR/test-server.log"; echo "0 passed, 1 failed"; exit 1; }
 set +e

@@ -20,7 +20,7 @@ import type { CalendarSetup } from './calendar-types';
 import { BookingDialog, type BookingDraft, type NewSlot } from './booking-dialog';
 import { PLANNING_KEY, PlanningStrip } from './planning-strip';
 import { SlotDialog, type SlotChange } from './slot-dialog';
-import { defaultEnd, minutesOfDay } from './slot-time';
+import { closingOn, defaultEnd, defaultStart } from './slot-time';
 import { useLiveSlots, type LiveStatus } from './use-live-slots';
 import styles from './calendar.module.css';
 
@@ -104,11 +104,7 @@ export function BoilCalendar({ setup }: { setup: CalendarSetup }) {
   );
 
   const api = () => calendarRef.current?.getApi();
-  /** Where a booking picked by the day alone starts: 09:00, or opening time if that is later. */
-  const dayStart = useCallback(
-    (day: DateTime) => day.startOf('day').plus({ minutes: Math.max(minutesOfDay(setup.opensAt), 9 * 60) }),
-    [setup.opensAt],
-  );
+  const dayStart = useCallback((day: DateTime) => defaultStart(day, setup.opensAt), [setup.opensAt]);
 
   const openDraft = useCallback(
     (start: DateTime, end?: DateTime) => {
@@ -165,7 +161,7 @@ export function BoilCalendar({ setup }: { setup: CalendarSetup }) {
     if (day < now.startOf('day')) day = now.startOf('day');
     let start = dayStart(day);
     if (start < now) start = now.plus({ hours: 1 }).startOf('hour');
-    const closing = start.startOf('day').plus({ minutes: minutesOfDay(setup.closesAt) });
+    const closing = closingOn(start, setup.closesAt);
     if (start.plus({ minutes: setup.slotMinMinutes }) > closing) {
       start = dayStart(start.plus({ days: 1 }));
     }

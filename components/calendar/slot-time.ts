@@ -1,4 +1,5 @@
 import { DateTime } from 'luxon';
+import { atClock, clockMinutes } from '@/lib/time';
 
 /** A wall-clock moment as the date and time inputs hold it. */
 export interface LocalParts {
@@ -20,10 +21,13 @@ export function fromLocalParts({ date, time }: LocalParts, zone: string): DateTi
 /** ISO 8601 with the zone's offset, as the API wants it. */
 export const toApiIso = (at: DateTime) => at.toISO({ suppressMilliseconds: true })!;
 
-export const minutesOfDay = (hhmm: string) => {
-  const [h, m] = hhmm.split(':').map(Number);
-  return h * 60 + m;
-};
+/** Where a booking picked by the day alone starts: 09:00 on the clock, or opening time if later. */
+export function defaultStart(day: DateTime, opensAt: string): DateTime {
+  return atClock(day, Math.max(clockMinutes(opensAt), 9 * 60));
+}
+
+/** Closing time on the clock, on the day of `at`. */
+export const closingOn = (at: DateTime, closesAt: string) => atClock(at, closesAt);
 
 /**
  * A sensible end for a start picked with one click: a few hours on, kept inside the sugarhouse
@@ -31,7 +35,7 @@ export const minutesOfDay = (hhmm: string) => {
  */
 export function defaultEnd(start: DateTime, { closesAt, slotMinMinutes }: { closesAt: string; slotMinMinutes: number }): DateTime {
   const wanted = start.plus({ minutes: Math.max(slotMinMinutes, 180) });
-  const closing = start.startOf('day').plus({ minutes: minutesOfDay(closesAt) });
+  const closing = closingOn(start, closesAt);
   if (wanted > closing && closing.diff(start, 'minutes').minutes >= slotMinMinutes) return closing;
   return wanted;
 }

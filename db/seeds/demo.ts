@@ -5,6 +5,7 @@ import { db } from '@/db/models';
 import { seedDeliveries } from './deliveries';
 import { seedRuns } from './runs';
 import { seedLedger } from './ledger';
+import { assertDisposable } from '@/db/guard';
 
 export const DEMO_PASSWORD = 'syrup-season';
 export const DEMO_TIME_ZONE = 'America/New_York';
@@ -34,9 +35,13 @@ export const DEMO_SIGN_INS = [
 
 const TABLES = ['payment_events', 'payments', 'settlements', 'allocation_revisions', 'allocations', 'season_fees', 'display_links', 'fuel_uses', 'syrup_draws', 'run_inputs', 'boil_runs', 'delivery_revisions', 'sap_deliveries', 'boil_slots', 'users', 'evaporators', 'seasons', 'households', 'cooperatives'];
 
-/** Removes every row of the domain tables (tests start each suite from the demo data). */
-export async function truncateAll(transaction?: Transaction) {
+/**
+ * Removes every row of the domain tables (tests start each suite from the demo data). Refuses a
+ * database whose name does not end in _test unless `force`.
+ */
+export async function truncateAll({ transaction, force = false }: { transaction?: Transaction; force?: boolean } = {}) {
   const { sequelize } = db();
+  assertDisposable(sequelize, 'empty', { force });
   await sequelize.query(`TRUNCATE ${TABLES.join(', ')} RESTART IDENTITY CASCADE`, { transaction });
 }
 

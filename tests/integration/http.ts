@@ -4,6 +4,9 @@ import { BASE_URL, DEMO_PASSWORD } from '../test-env';
 export class Client {
   private readonly cookies = new Map<string, string>();
 
+  /** `base`: another server than the test server (a second process in a test of its own). */
+  constructor(private readonly base: string = BASE_URL) {}
+
   private store(res: Response) {
     for (const c of res.headers.getSetCookie()) {
       const [pair] = c.split(';');
@@ -18,7 +21,7 @@ export class Client {
 
   // eslint-disable-next-line @typescript-eslint/no-explicit-any -- tests read the JSON answers freely
   async request(method: string, path: string, body?: unknown, raw?: string): Promise<{ status: number; body: any }> {
-    const res = await fetch(`${BASE_URL}${path}`, {
+    const res = await fetch(`${this.base}${path}`, {
       method,
       redirect: 'manual',
       headers: {
@@ -46,10 +49,10 @@ export class Client {
 
   /** Signs in through next-auth's credentials callback, as the sign-in form does. */
   async signIn(email: string, password = DEMO_PASSWORD): Promise<boolean> {
-    const csrf = await fetch(`${BASE_URL}/api/auth/csrf`);
+    const csrf = await fetch(`${this.base}/api/auth/csrf`);
     this.store(csrf);
     const { csrfToken } = (await csrf.json()) as { csrfToken: string };
-    const res = await fetch(`${BASE_URL}/api/auth/callback/credentials`, {
+    const res = await fetch(`${this.base}/api/auth/callback/credentials`, {
       method: 'POST',
       redirect: 'manual',
       headers: { 'content-type': 'application/x-www-form-urlencoded', cookie: this.cookieHeader },
@@ -60,8 +63,8 @@ export class Client {
   }
 }
 
-export async function signedIn(email: string): Promise<Client> {
-  const c = new Client();
+export async function signedIn(email: string, base: string = BASE_URL): Promise<Client> {
+  const c = new Client(base);
   if (!(await c.signIn(email))) throw new Error(`Could not sign in as ${email}`);
   return c;
 }

@@ -5,7 +5,7 @@ import { createMigrator } from '@/db/migrator';
 import { migrations } from '@/db/migrations';
 import { TEST_DATABASE_URL } from '../test-env';
 
-const SCRATCH = 'brixhouse_migration_check';
+const SCRATCH = 'brixhouse_migration_check_test';
 const scratchUrl = TEST_DATABASE_URL.replace(/\/[^/]+$/, `/${SCRATCH}`);
 const admin = new Sequelize(TEST_DATABASE_URL, { dialect: 'postgres', dialectModule: pg, logging: false });
 let scratch: Sequelize | undefined;

@@ -150,34 +150,51 @@ describe('booking a slot', () => {
   });
 });
 
+/**
+ * The next spring change of clock in the co-op's zone at least 60 days ahead (so a season around it
+ * stays clear of the demo season around today): the day the UTC offset grows.
+ */
+function nextSpringChange(): DateTime {
+  const soon = DateTime.now().setZone(ZONE).plus({ days: 60 });
+  for (let year = soon.year; ; year++) {
+    for (let d = DateTime.fromObject({ year, month: 3, day: 1 }, { zone: ZONE }); d.month === 3; d = d.plus({ days: 1 })) {
+      if (d.endOf('day').offset > d.offset && d > soon) return d;
+    }
+  }
+}
+
 describe('daylight-saving time', () => {
   it('keeps the wall-clock start and end across the spring change in the co-op’s zone', async () => {
-    // 2027-03-14 02:00 EST becomes 03:00 EDT in America/New_York (IANA tz database).
+    // In America/New_York 02:00 EST becomes 03:00 EDT on the second Sunday of March (IANA tz database).
+    const change = nextSpringChange();
+    const eve = change.minus({ days: 1 });
+    const ymd = (d: DateTime) => d.toISODate()!;
     const [{ cooperative_id }] = await rows<{ cooperative_id: string }>('SELECT cooperative_id FROM evaporators WHERE id = :e', { e: evaporatorId });
     await testDb().query(
-      `INSERT INTO seasons (cooperative_id, label, starts_on, ends_on, status) VALUES (:c, 'Season 2027 (spring)', '2027-02-20', '2027-04-10', 'planned')`,
-      { replacements: { c: cooperative_id } },
+      `INSERT INTO seasons (cooperative_id, label, starts_on, ends_on, status) VALUES (:c, :label, :from, :to, 'planned')`,
+      { replacements: { c: cooperative_id, label: `Season ${change.year} (spring)`, from: ymd(change.minus({ days: 22 })), to: ymd(change.plus({ days: 27 })) } },
     );
     const overnight = await sugarmaker.post('/api/slots', {
       evaporatorId,
       householdId: households.Nakamura,
-      startsAt: '2027-03-13T22:00:00-05:00',
-      endsAt: '2027-03-14T06:00:00-04:00',
+      startsAt: `${ymd(eve)}T22:00:00-05:00`,
+      endsAt: `${ymd(change)}T06:00:00-04:00`,
     });
     expect(overnight.status).toBe(201);
-    expect(overnight.body.startsAt).toBe('2027-03-13T22:00:00.000-05:00');
-    expect(overnight.body.endsAt).toBe('2027-03-14T06:00:00.000-04:00');
+    expect(overnight.body.startsAt).toBe(`${ymd(eve)}T22:00:00.000-05:00`);
+    expect(overnight.body.endsAt).toBe(`${ymd(change)}T06:00:00.000-04:00`);
     const [{ hours }] = await rows<{ hours: number }>('SELECT extract(epoch FROM ends_at - starts_at) / 3600 AS hours FROM boil_slots WHERE id = :id', { id: overnight.body.id });
     expect(Number(hours)).toBe(7);
 
     // Booked in winter time for a day after the change: 09:00–13:00 stays 09:00–13:00 local.
-    const day = DateTime.fromObject({ year: 2027, month: 3, day: 16, hour: 9 }, { zone: ZONE });
+    const after = change.plus({ days: 2 });
+    const day = DateTime.fromObject({ year: after.year, month: after.month, day: after.day, hour: 9 }, { zone: ZONE });
     const member = await okafor.post('/api/slots', { evaporatorId, startsAt: day.toISO(), endsAt: day.plus({ hours: 4 }).toISO() });
     expect(member.status).toBe(201);
-    const listed = (await okafor.get('/api/slots?from=2027-03-13&to=2027-03-17')).body as { id: string; startsAt: string; endsAt: string }[];
+    const listed = (await okafor.get(`/api/slots?from=${ymd(eve)}&to=${ymd(change.plus({ days: 3 }))}`)).body as { id: string; startsAt: string; endsAt: string }[];
     const mine = listed.find((s) => s.id === member.body.id)!;
-    expect(mine.startsAt).toBe('2027-03-16T09:00:00.000-04:00');
-    expect(mine.endsAt).toBe('2027-03-16T13:00:00.000-04:00');
-    expect(listed.find((s) => s.id === overnight.body.id)!.startsAt).toBe('2027-03-13T22:00:00.000-05:00');
+    expect(mine.startsAt).toBe(`${ymd(after)}T09:00:00.000-04:00`);
+    expect(mine.endsAt).toBe(`${ymd(after)}T13:00:00.000-04:00`);
+    expect(listed.find((s) => s.id === overnight.body.id)!.startsAt).toBe(`${ymd(eve)}T22:00:00.000-05:00`);
   });
 });

@@ -18,7 +18,13 @@ export async function GET() {
   const [database, mail] = await Promise.all([databaseHealthy(), mailHealthy()]);
   const ok = database && mail;
   return NextResponse.json(
-    { ok, database: database ? 'up' : 'down', mail: mail ? 'up' : 'down' },
+    {
+      ok,
+      database: database ? 'up' : 'down',
+      mail: mail ? 'up' : 'down',
+      // The integration set-up reuses only a server started with the tests' environment.
+      ...(process.env.BRIXHOUSE_TEST_SERVER === '1' ? { test: true } : {}),
+    },
     { status: ok ? 200 : 503 },
   );
 }

@@ -1,0 +1,1 @@
+export function useTestEnv(): Record<string, string>;
