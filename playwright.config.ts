@@ -1,8 +1,8 @@
 import { defineConfig, devices } from '@playwright/test';
-import { useTestEnv } from './scripts/test-env.mjs';
+import { loadTestEnv } from './scripts/test-env.mjs';
 
 // The tests' own ports and database (scripts/test-env.sh), also when Playwright runs alone.
-const port = Number(useTestEnv().E2E_PORT);
+const port = Number(loadTestEnv().E2E_PORT);
 const baseURL = `http://127.0.0.1:${port}`;
 
 export default defineConfig({

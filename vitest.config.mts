@@ -1,12 +1,12 @@
 import { defineConfig } from 'vitest/config';
 import { fileURLToPath } from 'node:url';
-import { useTestEnv } from './scripts/test-env.mjs';
+import { loadTestEnv } from './scripts/test-env.mjs';
 
 const root = fileURLToPath(new URL('.', import.meta.url));
 
 // The tests' own database, ports and secret (scripts/test-env.sh), also when vitest runs alone:
 // a test run never reaches the development database, whatever DATABASE_URL the shell had.
-const testEnv = useTestEnv();
+const testEnv = loadTestEnv();
 
 export default defineConfig({
   resolve: { alias: { '@': root } },

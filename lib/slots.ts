@@ -209,7 +209,8 @@ async function queueSlotMail(kind: SlotMailKind, slot: BoilSlot, coop: Cooperati
     title: `Boil slot – ${householdName} household`,
     description: `Crew the boil on ${evaporator?.name ?? 'the evaporator'} at ${coop.name}.`,
     location: coop.name,
-    sequence: Math.max(0, Math.floor((Date.now() - slot.createdAt.getTime()) / 1000)),
+    // The slot's revision: calendar programs keep the copy with the highest SEQUENCE.
+    sequence: slot.revision,
     cancelled: kind === 'cancelled',
   });
   await enqueueMail(
@@ -270,6 +271,20 @@ export async function createSlot(ctx: Ctx, input: SlotInput): Promise<SlotDto> {
   }
 }
 
+/**
+ * Members change a slot (move or cancel) only until the co-op's notice before it starts, which
+ * also keeps them from moving or cancelling a past slot still marked booked; staff may at any time.
+ */
+function checkNotice(actor: Actor, slot: BoilSlot, coop: Cooperative, action: 'move' | 'cancel') {
+  if (can(actor, 'slot.cancelLate') || slot.startsAt.getTime() - Date.now() >= coop.cancelNoticeHours * 3_600_000) return;
+  const started = slot.startsAt.getTime() <= Date.now();
+  throw invalid(
+    `Members can ${action} a slot up to ${coop.cancelNoticeHours} hours before it starts; ask a sugarmaker to ${action} this one.`,
+    { startsAt: started ? `This slot has already started; it can no longer be ${action === 'move' ? 'moved' : 'cancelled'}.` : `Too close to the start to ${action}.` },
+    `${action}_notice`,
+  );
+}
+
 async function loadOwnSlot(ctx: Ctx, id: string, transaction: Transaction) {
   const slot = await db().BoilSlot.findOne({ where: { id, cooperativeId: ctx.cooperativeId }, transaction, lock: transaction.LOCK.UPDATE });
   if (!slot) throw notFound('That boil slot', 'slot_not_found');
@@ -292,6 +307,7 @@ export async function updateSlot(ctx: Ctx, id: string, patch: SlotPatch): Promis
         (new Date(patch.startsAt).getTime() !== slot.startsAt.getTime() || new Date(patch.endsAt).getTime() !== slot.endsAt.getTime());
       const changes: Partial<BoilSlot> = {};
       if (moved) {
+        checkNotice(actor, slot, coop, 'move');
         const w = { startsAt: new Date(patch.startsAt!), endsAt: new Date(patch.endsAt!) };
         target = { evaporatorId: slot.evaporatorId, w };
         const season = await checkRules({ actor, coop, w, transaction });
@@ -300,7 +316,8 @@ export async function updateSlot(ctx: Ctx, id: string, patch: SlotPatch): Promis
       if (patch.crew !== undefined) changes.crew = patch.crew;
       if (patch.note !== undefined) changes.note = patch.note || null;
       if (patch.expectedSapL !== undefined) changes.expectedSapL = patch.expectedSapL;
-      await slot.update(changes, { transaction });
+      // returning: the row as the database wrote it, with the revision its trigger raised.
+      await slot.update(changes, { transaction, returning: true });
       if (moved) await queueSlotMail('moved', slot, coop, name, transaction);
       return toDto(slot, name, actor, coop.timeZone);
     });
@@ -318,15 +335,9 @@ export async function cancelSlot(ctx: Ctx, id: string): Promise<SlotDto> {
   const coop = await coopOf(ctx);
   const dto = await withTransaction(ctx, async ({ transaction, actor }) => {
     const slot = await loadOwnSlot(ctx, id, transaction);
-    if (!can(actor, 'slot.cancelLate') && slot.startsAt.getTime() - Date.now() < coop.cancelNoticeHours * 3_600_000) {
-      throw invalid(
-        `Members can cancel up to ${coop.cancelNoticeHours} hours before a slot starts; ask a sugarmaker to cancel this one.`,
-        { startsAt: 'Too close to the start to cancel.' },
-        'cancel_notice',
-      );
-    }
+    checkNotice(actor, slot, coop, 'cancel');
     const name = await householdName(slot.householdId, coop.id, transaction);
-    await slot.update({ status: 'cancelled', cancelledAt: new Date(), cancelledById: actorUserId(ctx) }, { transaction });
+    await slot.update({ status: 'cancelled', cancelledAt: new Date(), cancelledById: actorUserId(ctx) }, { transaction, returning: true });
     await queueSlotMail('cancelled', slot, coop, name, transaction);
     return toDto(slot, name, actor, coop.timeZone);
   });

@@ -1,1 +1,1 @@
-export function useTestEnv(): Record<string, string>;
+export function loadTestEnv(): Record<string, string>;

@@ -12,7 +12,7 @@ const CORE = ['NODE_ENV', 'PORT', 'E2E_PORT', 'PG_PORT', 'DATABASE_URL', 'APP_UR
  * run alone reaches the tests' database, never the development one.
  * @returns {Record<string, string>}
  */
-export function useTestEnv() {
+export function loadTestEnv() {
   // Every variable the scripts set or change, read from a shell before and after sourcing them.
   const out = execFileSync('bash', ['-c', 'env -0; printf "\\0--\\0"; source scripts/lib.sh && source scripts/test-env.sh && env -0'], {
     cwd: ROOT,

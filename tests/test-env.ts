@@ -1,7 +1,7 @@
-import { useTestEnv } from '../scripts/test-env.mjs';
+import { loadTestEnv } from '../scripts/test-env.mjs';
 
 // Outside `npm test` (a suite run alone), load the tests' environment here too.
-if (process.env.BRIXHOUSE_TEST_SERVER !== '1' || !process.env.DATABASE_URL?.endsWith('_test')) useTestEnv();
+if (process.env.BRIXHOUSE_TEST_SERVER !== '1' || !process.env.DATABASE_URL?.endsWith('_test')) loadTestEnv();
 
 /** Ports and addresses of the test set-up (scripts/test-env.sh). */
 export const TEST_PORT = Number(process.env.E2E_PORT);

@@ -7,6 +7,7 @@ import * as sessionVersion from './20261202-0001-session-version';
 import * as deliveries from './20261202-0010-deliveries';
 import * as runs from './20261202-0020-runs';
 import * as ledger from './20261202-0030-ledger';
+import * as slotRevision from './20261202-0002-slot-revision';
 
 interface MigrationModule {
   up: MigrationFn<QueryInterface>;
@@ -22,4 +23,5 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '20261202-0010-deliveries', module: deliveries },
   { name: '20261202-0020-runs', module: runs },
   { name: '20261202-0030-ledger', module: ledger },
+  { name: '20261202-0002-slot-revision', module: slotRevision },
 ];

@@ -20,6 +20,8 @@ export class BoilSlot extends Model<InferAttributes<BoilSlot>, InferCreationAttr
   declare bookedById: string | null;
   declare cancelledAt: CreationOptional<Date | null>;
   declare cancelledById: CreationOptional<string | null>;
+  /** 0 when booked, one more with every change (a database trigger raises it); the .ics SEQUENCE. */
+  declare revision: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -40,6 +42,7 @@ export class BoilSlot extends Model<InferAttributes<BoilSlot>, InferCreationAttr
         bookedById: { type: DataTypes.UUID, allowNull: true },
         cancelledAt: { type: DataTypes.DATE, allowNull: true },
         cancelledById: { type: DataTypes.UUID, allowNull: true },
+        revision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
