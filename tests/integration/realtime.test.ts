@@ -1,16 +1,15 @@
-import { spawn, type ChildProcess } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DateTime } from 'luxon';
 import { io as connect, type Socket } from 'socket.io-client';
-import { BASE_URL, TEST_PORT } from '../test-env';
+import { BASE_URL } from '../test-env';
 import bcrypt from 'bcryptjs';
 import { Client, signedIn } from './http';
 import { closeTestDb, testDb } from './db';
+import { startServer, type ServerProcess } from './processes';
 
-// A second server process on the same database, as when the co-op runs more than one.
-const SECOND_PORT = TEST_PORT + 1;
-const SECOND_URL = `http://127.0.0.1:${SECOND_PORT}`;
-let second: ChildProcess;
+// A second server process on the same database (on a free port), as when the co-op runs more than one.
+let second: ServerProcess;
+let SECOND_URL = '';
 const sockets: Socket[] = [];
 
 function socketFor(url: string, cookie?: string): Socket {
@@ -34,24 +33,13 @@ beforeAll(async () => {
      SELECT id, 'Oona Reyes', 'coordinator@stillwater.example', :h, 'coordinator' FROM c`,
     { replacements: { h: await bcrypt.hash('another-co-op', 4) } },
   );
-  second = spawn('node', ['--import', 'tsx', 'server.ts'], {
-    env: { ...process.env, PORT: String(SECOND_PORT), NODE_ENV: 'production', NEXT_DIST_DIR: process.env.NEXT_DIST_DIR ?? '.next-test' },
-    stdio: 'ignore',
-  });
-  for (let i = 0; i < 240; i++) {
-    try {
-      if ((await fetch(`${SECOND_URL}/api/health`)).ok) return;
-    } catch {
-      /* not up yet */
-    }
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  throw new Error('the second server did not start');
-}, 90_000);
+  second = await startServer('realtime-second', process.env);
+  SECOND_URL = second.url;
+}, 120_000);
 
 afterAll(async () => {
   for (const s of sockets) s.close();
-  second?.kill('SIGTERM');
+  second?.stop();
   await closeTestDb();
 });
 

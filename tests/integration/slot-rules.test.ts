@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DateTime } from 'luxon';
 import { type Client, signedIn } from './http';
 import { closeTestDb, rows, testDb } from './db';
-import { attachmentText, waitForMail } from '../mailbox';
+import { attachmentText, clearMail, waitForMail } from '../mailbox';
 import { formatSlotRange } from '@/lib/time';
 
 const ZONE = 'America/New_York';
@@ -85,6 +85,7 @@ describe('the revision of a slot and the SEQUENCE of its calendar file', () => {
   };
 
   it('rises with every change, and the e-mailed .ics carries it', async () => {
+    await clearMail();
     const booked = await okafor.post('/api/slots', { evaporatorId: spareId, startsAt: at(9, 9), endsAt: at(9, 11) });
     expect(booked.status).toBe(201);
     const id = booked.body.id as string;
