@@ -9,6 +9,7 @@ import { formatSlotRange } from '@/lib/time';
 import { formatVolume } from '@/lib/sugar';
 import { Alert } from '@/components/ui/alert';
 import { TodayQueueCard } from '@/components/queue/today-queue-card';
+import { TodayLedgerCard } from '@/components/ledger/today-ledger-card';
 
 export const metadata: Metadata = { title: 'Today' };
 
@@ -69,6 +70,13 @@ export default async function HomePage() {
           </CardBody>
         </Card>
       </div>
+      {user.role === 'member' && (
+        <TodayLedgerCard
+          user={{ id: user.userId, role: user.role, householdId: user.householdId, cooperativeId: ctx.cooperativeId }}
+          openSeasonId={open?.id ?? null}
+          settledSeasonId={seasons.find((s) => s.status === 'settled')?.id ?? null}
+        />
+      )}
       <Alert tone="warning" title="Before you crew a boil">
         Boiling sap and syrup burn; never leave a firing evaporator unattended; keep the sugarhouse ventilated against carbon
         monoxide. Follow local fire codes and the co-op’s sugarmakers.

@@ -1,0 +1,237 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { requireUser } from '@/lib/auth/session';
+import { listSeasons } from '@/lib/coop';
+import { contextOf, getLedger } from '@/lib/ledger/service';
+import { formatShare, formatSyrup, formatSyrupClasses } from '@/lib/ledger/format';
+import { formatBrix, formatMass, formatMoney, formatVolume, KG_PER_POUND } from '@/lib/sugar';
+import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
+import { Table, TBody, TD, TH, THead, TR } from '@/components/ui/table';
+import { Badge } from '@/components/ui/badge';
+import { buttonVariants } from '@/components/ui/button';
+import { SeasonActions } from '@/components/ledger/season-actions';
+import { SugarChartLazy } from '@/components/ledger/sugar-chart-lazy';
+
+export const metadata: Metadata = { title: 'Season ledger' };
+
+export default async function LedgerPage({ searchParams }: { searchParams: Promise<{ season?: string }> }) {
+  const user = await requireUser({ onFail: 'redirect' });
+  const { season: wanted } = await searchParams;
+  const seasons = await listSeasons({ cooperativeId: user.cooperativeId });
+  const season = seasons.find((s) => s.id === wanted) ?? seasons.find((s) => s.status === 'open') ?? seasons[0];
+  if (!season) return <p>No season yet.</p>;
+  const ledger = await getLedger(contextOf(user), season.id);
+  const u = ledger.unitSystem;
+  const money = (c: number) => formatMoney(c, ledger.currency);
+  const t = ledger.totals;
+  const isMember = user.role === 'member';
+  const nameOf = new Map(ledger.householdNames.map((h) => [h.householdId, h.name]));
+  const statementOf = new Map(ledger.statements.map((s) => [s.householdId, s.id]));
+
+  return (
+    <div className="flex flex-col gap-6">
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <div>
+          <h1 className="text-3xl font-bold">Season ledger</h1>
+          <p className="text-slate-muted">
+            {ledger.season.label}, {ledger.season.startsOn} to {ledger.season.endsOn}{' '}
+            <Badge variant={ledger.season.status === 'open' ? 'spruce' : 'neutral'}>{ledger.season.status}</Badge>
+          </p>
+        </div>
+        <nav aria-label="Seasons" className="flex flex-wrap gap-2">
+          {seasons.map((s) => (
+            <Link key={s.id} href={`/ledger?season=${s.id}`} aria-current={s.id === season.id ? 'page' : undefined} className={buttonVariants({ variant: s.id === season.id ? 'primary' : 'secondary', size: 'sm' })}>
+              {s.label}
+            </Link>
+          ))}
+        </nav>
+      </div>
+
+      <p className="max-w-3xl">
+        Syrup and the fuel bill are split by the <strong>sugar</strong> each household’s sap put into each boil, not by litres: a
+        litre of 3 °Bx sap holds twice the sugar of a litre at 1.5 °Bx, so it earns twice the syrup and pays twice the fuel. The
+        split by raw volume is shown beside it for comparison.
+      </p>
+
+      <section aria-labelledby="by-sugar">
+        <h2 id="by-sugar" className="mb-2 text-xl font-bold">By sugar{isMember ? ': your household' : ''}</h2>
+        <Table label="Ledger by sugar">
+          <THead>
+            <TR>
+              <TH>Household</TH>
+              <TH numeric>Sap delivered</TH>
+              <TH numeric>Rejected</TH>
+              <TH numeric>Mean °Brix</TH>
+              <TH numeric>Sugar</TH>
+              <TH numeric>Share</TH>
+              <TH numeric>Syrup</TH>
+              <TH>By colour class</TH>
+              <TH numeric>Fuel</TH>
+              <TH numeric>Fee</TH>
+              <TH numeric>Due</TH>
+              <TH numeric>Paid</TH>
+              <TH numeric>Balance</TH>
+            </TR>
+          </THead>
+          <TBody>
+            {ledger.households.map((h) => (
+              <TR key={h.householdId} data-testid={`ledger-row-${h.name}`}>
+                <TH scope="row">
+                  {statementOf.has(h.householdId) ? <Link href={`/statements/${statementOf.get(h.householdId)}`}>{h.name}</Link> : h.name}
+                </TH>
+                <TD numeric>{formatVolume(h.sapL, u, { digits: 1 })}</TD>
+                <TD numeric>{formatVolume(h.rejectedL, u, { digits: 1 })}</TD>
+                <TD numeric>{h.meanBrix === null ? '—' : formatBrix(h.meanBrix, { digits: 2 })}</TD>
+                <TD numeric>{formatMass(h.sugarKg, u)}</TD>
+                <TD numeric>{formatShare(h.share)}</TD>
+                <TD numeric>{formatSyrup(h.syrupMl, u)}</TD>
+                <TD>{formatSyrupClasses(h.syrupByClassMl, u)}</TD>
+                <TD numeric>{money(h.fuelCents)}</TD>
+                <TD numeric>{money(h.feeCents)}</TD>
+                <TD numeric>{money(h.dueCents)}</TD>
+                <TD numeric>{money(h.paidCents)}</TD>
+                <TD numeric className={h.balanceCents > 0 ? 'font-semibold text-ember' : undefined}>
+                  {money(h.balanceCents)}
+                  {h.balanceCents > 0 && ledger.season.status === 'settled' ? ' owing' : ''}
+                </TD>
+              </TR>
+            ))}
+            <TR className="bg-birch font-semibold">
+              <TH scope="row">Co-op total</TH>
+              <TD numeric>{formatVolume(t.sapL, u, { digits: 1 })}</TD>
+              <TD numeric>{formatVolume(t.rejectedL, u, { digits: 1 })}</TD>
+              <TD numeric>—</TD>
+              <TD numeric>{formatMass(t.sugarKg, u)}</TD>
+              <TD numeric>100.0 %</TD>
+              <TD numeric>{formatSyrup(t.syrupMl, u)}</TD>
+              <TD>{formatSyrupClasses(t.syrupByClassMl, u)}</TD>
+              <TD numeric>{money(t.fuelCents)}</TD>
+              <TD numeric>{isMember ? '—' : money(t.feeCents)}</TD>
+              <TD numeric>{isMember ? '—' : money(t.dueCents)}</TD>
+              <TD numeric>{isMember ? '—' : money(t.paidCents)}</TD>
+              <TD numeric>{isMember ? '—' : money(t.balanceCents)}</TD>
+            </TR>
+          </TBody>
+        </Table>
+      </section>
+
+      <section aria-labelledby="by-volume">
+        <h2 id="by-volume" className="mb-2 text-xl font-bold">By volume, for comparison</h2>
+        <Table label="The same runs split by volume">
+          <THead>
+            <TR>
+              <TH>Household</TH>
+              <TH numeric>Sap boiled</TH>
+              <TH numeric>Share by volume</TH>
+              <TH numeric>Syrup by volume</TH>
+              <TH numeric>Fuel by volume</TH>
+              <TH numeric>Syrup by sugar</TH>
+              <TH numeric>Difference</TH>
+            </TR>
+          </THead>
+          <TBody>
+            {ledger.households.map((h) => (
+              <TR key={h.householdId} data-testid={`volume-row-${h.name}`}>
+                <TH scope="row">{h.name}</TH>
+                <TD numeric>{formatVolume(h.boiledL, u, { digits: 1 })}</TD>
+                <TD numeric>{formatShare(h.byVolume.share)}</TD>
+                <TD numeric>{formatSyrup(h.byVolume.syrupMl, u)}</TD>
+                <TD numeric>{money(h.byVolume.fuelCents)}</TD>
+                <TD numeric>{formatSyrup(h.syrupMl, u)}</TD>
+                <TD numeric>
+                  {h.syrupMl >= h.byVolume.syrupMl ? '+' : '−'}
+                  {formatSyrup(Math.abs(h.syrupMl - h.byVolume.syrupMl), u)}
+                </TD>
+              </TR>
+            ))}
+          </TBody>
+        </Table>
+      </section>
+
+      <div className="grid gap-6 lg:grid-cols-2">
+        <Card>
+          <CardHeader>
+            <CardTitle>Sugar delivered by week</CardTitle>
+          </CardHeader>
+          <CardBody>
+            <SugarChartLazy
+              weeks={ledger.weeks}
+              households={ledger.households.map((h) => ({ householdId: h.householdId, name: h.name }))}
+              factor={u === 'us' ? 1 / KG_PER_POUND : 1}
+              unit={u === 'us' ? 'lb' : 'kg'}
+            />
+          </CardBody>
+        </Card>
+        <Card>
+          <CardHeader>
+            <CardTitle>Files and actions</CardTitle>
+          </CardHeader>
+          <CardBody>
+            <div className="flex flex-wrap gap-2">
+              <a className={buttonVariants({ variant: 'secondary' })} href={`/api/seasons/${ledger.seasonId}/ledger?format=csv`} download>
+                Download CSV
+              </a>
+              <a className={buttonVariants({ variant: 'secondary' })} href={`/api/seasons/${ledger.seasonId}/ledger?format=pdf`} download>
+                Download PDF
+              </a>
+            </div>
+            {user.role === 'coordinator' && <SeasonActions seasonId={ledger.seasonId} status={ledger.season.status} />}
+            {isMember && (
+              <p className="text-sm text-slate-muted">
+                Other households: {ledger.householdNames.filter((h) => h.householdId !== user.householdId).map((h) => h.name).join(', ')}.
+              </p>
+            )}
+          </CardBody>
+        </Card>
+      </div>
+
+      <section aria-labelledby="runs">
+        <h2 id="runs" className="mb-2 text-xl font-bold">{isMember ? 'Your share of each run' : 'Each run’s allocation'}</h2>
+        {ledger.runs.length === 0 ? (
+          <p className="text-slate-muted">No finished runs in this season yet.</p>
+        ) : (
+          <ul className="flex flex-col gap-2">
+            {ledger.runs.map((run) => (
+              <li key={run.runId}>
+                <details className="rounded-lg border border-birch-line bg-birch-raised">
+                  <summary className="flex min-h-touch cursor-pointer flex-wrap items-center gap-x-4 px-3 py-2">
+                    <span className="font-semibold">Run {run.lotCode}</span>
+                    <span className="text-slate-muted">{run.finishedAt?.slice(0, 10)}</span>
+                    <span>{formatSyrup(run.syrupMl, u)} syrup</span>
+                    <span>{money(run.fuelCents)} fuel</span>
+                  </summary>
+                  <div className="px-3 pb-3">
+                    <Table>
+                      <THead>
+                        <TR>
+                          <TH>Household</TH>
+                          <TH numeric>Sap in</TH>
+                          <TH numeric>Sugar</TH>
+                          <TH numeric>Share</TH>
+                          <TH numeric>Syrup</TH>
+                          <TH numeric>Fuel</TH>
+                        </TR>
+                      </THead>
+                      <TBody>
+                        {run.allocations.map((a) => (
+                          <TR key={a.householdId}>
+                            <TH scope="row">{nameOf.get(a.householdId)}</TH>
+                            <TD numeric>{formatVolume(a.sapL, u, { digits: 1 })}</TD>
+                            <TD numeric>{formatMass(a.sugarKg, u)}</TD>
+                            <TD numeric>{formatShare(a.share)}</TD>
+                            <TD numeric>{formatSyrup(a.syrupMl, u)}</TD>
+                            <TD numeric>{money(a.fuelCents)}</TD>
+                          </TR>
+                        ))}
+                      </TBody>
+                    </Table>
+                  </div>
+                </details>
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
+    </div>
+  );
+}
