@@ -11,6 +11,7 @@ import type { Actor } from '@/lib/server/actor';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { slotIcs } from '@/lib/mail/ics';
 import { broadcast } from '@/lib/realtime';
+import { recordChange } from '@/lib/events';
 import { clockLabel, clockMinutes, formatSlotRange, localDay, localMinutes, toZonedIso } from '@/lib/time';
 import type { SlotInput, SlotPatch } from '@/lib/validations/slots';
 import { appUrl } from '@/lib/env';
@@ -261,6 +262,7 @@ export async function createSlot(ctx: Ctx, input: SlotInput): Promise<SlotDto> {
         { transaction },
       );
       await queueSlotMail('booked', slot, coop, name, transaction);
+      await recordChange({ cooperativeId: coop.id, transaction }, { type: 'slot.booked', slotId: slot.id });
       return toDto(slot, name, actor, coop.timeZone);
     });
     broadcast(coop.id, 'slots:changed', { id: dto.id });
@@ -319,6 +321,7 @@ export async function updateSlot(ctx: Ctx, id: string, patch: SlotPatch): Promis
       // returning: the row as the database wrote it, with the revision its trigger raised.
       await slot.update(changes, { transaction, returning: true });
       if (moved) await queueSlotMail('moved', slot, coop, name, transaction);
+      if (moved) await recordChange({ cooperativeId: coop.id, transaction }, { type: 'slot.moved', slotId: slot.id });
       return toDto(slot, name, actor, coop.timeZone);
     });
     broadcast(coop.id, 'slots:changed', { id });
@@ -339,6 +342,7 @@ export async function cancelSlot(ctx: Ctx, id: string): Promise<SlotDto> {
     const name = await householdName(slot.householdId, coop.id, transaction);
     await slot.update({ status: 'cancelled', cancelledAt: new Date(), cancelledById: actorUserId(ctx) }, { transaction, returning: true });
     await queueSlotMail('cancelled', slot, coop, name, transaction);
+    await recordChange({ cooperativeId: coop.id, transaction }, { type: 'slot.cancelled', slotId: slot.id });
     return toDto(slot, name, actor, coop.timeZone);
   });
   broadcast(coop.id, 'slots:changed', { id });

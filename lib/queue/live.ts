@@ -22,6 +22,7 @@ interface Pending {
  */
 export function startQueueBroadcaster(io: Server): () => void {
   const pending = new Map<string, Pending>();
+  const sent = new Map<string, number>();
 
   async function flush(cooperativeId: string) {
     const p = pending.get(cooperativeId)!;
@@ -33,7 +34,9 @@ export function startQueueBroadcaster(io: Server): () => void {
     p.running = true;
     try {
       const snapshot = await computeSnapshot(cooperativeId);
-      if (snapshot) {
+      // A change already carried by an earlier snapshot is not sent again.
+      if (snapshot && snapshot.version > (sent.get(cooperativeId) ?? -1)) {
+        sent.set(cooperativeId, snapshot.version);
         rememberSnapshot(cooperativeId, snapshot);
         io.to(coopRoom(cooperativeId)).emit('queue', snapshot);
       }
