@@ -2,6 +2,9 @@ import { randomUUID } from 'node:crypto';
 import type { Browser, BrowserContext, Page } from '@playwright/test';
 import { expect, SignInPage, test } from './fixtures';
 
+// Sign-in and first page loads are slow on a shared two-core machine; the live-update checks keep their own limits.
+test.describe.configure({ timeout: 240_000 });
+
 async function signedInPage(browser: Browser, email: string, viewport = { width: 1024, height: 900 }): Promise<{ context: BrowserContext; page: Page }> {
   const context = await browser.newContext({ viewport });
   const page = await context.newPage();
