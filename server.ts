@@ -74,6 +74,10 @@ async function main() {
 
   await startMailWorker();
   await startStatementWorker();
+  // Open the pool's standing connections now rather than on the first request.
+  await Promise.all([getSequelize().query('SELECT 1'), getSequelize().query('SELECT 1')]).catch((err) =>
+    console.error('database not reachable yet:', err.message),
+  );
 
   server.listen(e.PORT, hostname, () => {
     console.log(`Brixhouse is serving on http://${hostname}:${e.PORT} (${dev ? 'development' : 'production'})`);

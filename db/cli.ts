@@ -3,9 +3,10 @@ import { createMigrator } from '@/db/migrator';
 import { db } from '@/db/models';
 import { seedDemo, truncateAll } from '@/db/seeds/demo';
 import { assertDisposable } from '@/db/guard';
+import { seedScale } from '@/db/seeds/scale';
 
 /**
- * npm run db:migrate | db:rollback [-- --to 0] | db:seed [-- --reset]. Emptying commands
+ * npm run db:migrate | db:rollback [-- --to 0] | db:seed [-- --reset | --scale N]. Emptying commands
  * (`seed --reset`, `rollback --to 0`) touch only a database named …_test unless `--force`.
  */
 async function main() {
@@ -22,6 +23,13 @@ async function main() {
       if (toZero) assertDisposable(sequelize, 'roll back every migration of', { force });
       const undone = await migrator.down(toZero ? { to: 0 } : undefined);
       console.log(`Rolled back ${undone.length} migration(s).`);
+    } else if (command === 'seed' && args.includes('--scale')) {
+      const scale = Number(args[args.indexOf('--scale') + 1]);
+      const started = Date.now();
+      const seeded = await seedScale(sequelize, scale);
+      const rows = Object.entries(seeded.counts).map(([t, n]) => `${n} ${t}`).join(', ');
+      console.log(`Generated the ×${scale} co-op in ${((Date.now() - started) / 1000).toFixed(1)} s: ${rows}.`);
+      console.log(`Sign in as ${seeded.coordinatorEmail} or ${seeded.memberEmail} (password: ${seeded.password}).`);
     } else if (command === 'seed') {
       const { Cooperative } = db();
       if (args.includes('--reset')) await truncateAll({ force });

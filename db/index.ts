@@ -10,15 +10,44 @@ const globalForDb = globalThis as unknown as { __brixhouseSequelize?: Map<string
 /** Connection errors worth one more try; a write retried this way must be idempotent. */
 const RETRYABLE = [/ECONNRESET/, /ECONNREFUSED/, /57P01/, /57P03/, /terminating connection/, /Connection terminated/];
 
+/** Refusals while the database restarts: nothing was sent, so waiting and asking again is safe. */
+const NOT_UP_YET = /ECONNREFUSED|57P03|the database system is (starting up|shutting down)|Connection terminated/;
+const CONNECT_WAIT_MS = 6_000;
+
+/**
+ * While the database restarts, a request waits (up to six seconds) for a connection instead of
+ * failing at once: getting a connection sends no statement, so this is safe for every write.
+ */
+function waitForConnections(sequelize: Sequelize) {
+  const manager = sequelize.connectionManager as unknown as { getConnection: (o?: object) => Promise<unknown> };
+  const getConnection = manager.getConnection.bind(manager);
+  manager.getConnection = async (options?: object) => {
+    const until = Date.now() + CONNECT_WAIT_MS;
+    for (let delay = 50; ; delay = Math.min(delay * 2, 150)) {
+      try {
+        return await getConnection(options);
+      } catch (err) {
+        const text = `${(err as Error)?.message} ${(err as { parent?: { code?: string } })?.parent?.code ?? ''}`;
+        if (!NOT_UP_YET.test(text) || Date.now() + delay > until) throw err;
+        await new Promise((r) => setTimeout(r, delay));
+      }
+    }
+  };
+  return sequelize;
+}
+
 function create(url: string): Sequelize {
-  return new Sequelize(url, {
+  return waitForConnections(new Sequelize(url, {
     dialect: 'postgres',
     dialectModule: pg,
     logging: false,
-    pool: { max: 20, min: 0, idle: 10_000, acquire: 30_000 },
+    // A warm pool: `min` connections stay open through idle spells, so the first request after
+    // a quiet minute does not wait for a new connection; TCP keep-alive keeps them alive.
+    pool: { max: 20, min: 2, idle: 10_000, acquire: 30_000 },
+    dialectOptions: { keepAlive: true },
     retry: { max: 3, match: RETRYABLE },
     define: { underscored: true, timestamps: true },
-  });
+  }));
 }
 
 /**

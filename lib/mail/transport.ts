@@ -18,8 +18,23 @@ export function mailTransport(): Transporter {
   return globalForMail.__brixhouseMail;
 }
 
-/** True when the SMTP server answers within two seconds. */
-export async function mailHealthy(): Promise<boolean> {
+const HEALTH_TTL_MS = 5_000;
+const globalForHealth = globalThis as unknown as { __brixhouseMailHealth?: { at: number; check: Promise<boolean> } };
+
+/**
+ * True when the SMTP server answers within two seconds. The answer is kept for five seconds
+ * (and shared by concurrent callers), so a busy health endpoint opens at most one SMTP session
+ * every five seconds.
+ */
+export function mailHealthy(): Promise<boolean> {
+  const cached = globalForHealth.__brixhouseMailHealth;
+  if (cached && Date.now() - cached.at < HEALTH_TTL_MS) return cached.check;
+  const check = verifyMail();
+  globalForHealth.__brixhouseMailHealth = { at: Date.now(), check };
+  return check;
+}
+
+async function verifyMail(): Promise<boolean> {
   try {
     await Promise.race([
       mailTransport().verify(),

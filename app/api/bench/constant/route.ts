@@ -1,0 +1,16 @@
+import { NextResponse } from 'next/server';
+import constant from '@/bench/constant.json';
+
+export const dynamic = 'force-dynamic';
+
+/**
+ * The framework's own ceiling for the benchmarks: a route handler answering constant JSON, with
+ * no session, database or formatting. It exists only while BENCH_ROUTES=1 (npm run bench sets
+ * it); otherwise it answers 404 like any unknown path.
+ */
+export function GET() {
+  if (process.env.BENCH_ROUTES !== '1') {
+    return NextResponse.json({ error: { code: 'not_found', message: 'Not found.' } }, { status: 404 });
+  }
+  return NextResponse.json(constant);
+}
