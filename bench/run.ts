@@ -4,7 +4,7 @@ import { parseArgs } from 'node:util';
 import { DateTime } from 'luxon';
 import { QueryTypes } from 'sequelize';
 import { getSequelize } from '@/db';
-import { seedScale, SCALE_TIME_ZONE, type ScaleSeed } from '@/db/seeds/scale';
+import { seedScale, SCALE_TIME_ZONE, type GeneratedCoop } from '@/db/seeds/scale';
 import { apiFigures, apiRoutes, BENCH_NOTE, probe, runApi, type ApiContext, type RouteSpec } from './api';
 import { summarise } from './load';
 import { writeReport, type Report } from './report';
@@ -36,7 +36,7 @@ async function hasTable(name: string) {
   return r.t != null;
 }
 
-async function apiContext(seed: ScaleSeed, appUrls: string[], baselineUrl: string, cookie: string): Promise<ApiContext> {
+async function apiContext(seed: GeneratedCoop, appUrls: string[], baselineUrl: string, cookie: string): Promise<ApiContext> {
   const today = DateTime.now().setZone(SCALE_TIME_ZONE).startOf('day');
   const households = await rows<{ id: string }>('SELECT id FROM households WHERE cooperative_id = :id ORDER BY name', { id: seed.cooperativeId });
   const lots = await hasTable('sap_deliveries');

@@ -8,6 +8,7 @@ import * as deliveries from './20261202-0010-deliveries';
 import * as runs from './20261202-0020-runs';
 import * as ledger from './20261202-0030-ledger';
 import * as slotRevision from './20261202-0002-slot-revision';
+import * as runNumbers from './20261202-0040-run-numbers';
 
 interface MigrationModule {
   up: MigrationFn<QueryInterface>;
@@ -24,4 +25,5 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '20261202-0020-runs', module: runs },
   { name: '20261202-0030-ledger', module: ledger },
   { name: '20261202-0002-slot-revision', module: slotRevision },
+  { name: '20261202-0040-run-numbers', module: runNumbers },
 ];

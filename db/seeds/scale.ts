@@ -2,6 +2,7 @@ import bcrypt from 'bcryptjs';
 import { DateTime } from 'luxon';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { DEMO_PASSWORD } from '@/db/seeds/demo';
+import { gradeClass, syrupLitres, waterToEvaporateL } from '@/lib/sugar';
 
 /**
  * A generated large co-op for benchmarks: per unit of scale 20 households, 2,000 sap lots and
@@ -10,8 +11,8 @@ import { DEMO_PASSWORD } from '@/db/seeds/demo';
  * SQL (generate_series), so ×100 loads in seconds; each step only runs once the feature's
  * table exists, so the generator grows with the schema.
  */
-export interface ScaleSeed {
-  scale: number;
+export interface GeneratedCoop {
+  name: string;
   cooperativeId: string;
   openSeasonId: string;
   lastSeasonId: string;
@@ -27,9 +28,41 @@ const EVAPORATORS_PER_UNIT = 2;
 const HOUSEHOLDS_PER_UNIT = 20;
 const LOTS_PER_UNIT = 2_000;
 const RUNS_PER_UNIT = 200;
+/** Accepted lots of the last hours still waiting in the Boil queue, per unit of scale. */
+const WAITING_PER_UNIT = 40;
+const SYRUP_BRIX = 66.9;
+/** Heating oil for the season, per litre (the evaporators burn oil). */
+const OIL_CENTS_PER_L = 110;
 
-export const scaleCoopName = (scale: number) => `Scale ×${scale} Cooperative`;
-export const scaleEmail = (scale: number, who: string) => `${who}@scale-${scale}.example`;
+/** The shape of a generated co-op: how many of each, and its name and sign-in domain. */
+export interface CoopSpec {
+  name: string;
+  /** E-mail domain of its people: coordinator@, sugarmaker@, member-00001@ … */
+  domain: string;
+  households: number;
+  lots: number;
+  runs: number;
+  /** Accepted lots left in the queue (the latest ones). */
+  waiting: number;
+  evaporators: number;
+  timeZone?: string;
+  unitSystem?: 'us' | 'metric';
+  currency?: string;
+}
+
+/** The benchmark co-op of scale N: 20 households, 2,000 lots and 200 runs per unit. */
+export function scaleSpec(scale: number): CoopSpec {
+  if (!Number.isInteger(scale) || scale < 1 || scale > 1000) throw new RangeError('The scale is a whole number from 1 to 1000.');
+  return {
+    name: `Scale ×${scale} Cooperative`,
+    domain: `scale-${scale}.example`,
+    households: HOUSEHOLDS_PER_UNIT * scale,
+    lots: LOTS_PER_UNIT * scale,
+    runs: RUNS_PER_UNIT * scale,
+    waiting: WAITING_PER_UNIT * scale,
+    evaporators: EVAPORATORS_PER_UNIT * scale,
+  };
+}
 
 async function tableExists(sequelize: Sequelize, name: string, transaction: Transaction) {
   const [row] = await sequelize.query<{ t: string | null }>('SELECT to_regclass(:name)::text AS t', {
@@ -50,12 +83,12 @@ async function count(sequelize: Sequelize, table: string, cooperativeId: string,
 }
 
 /** Feature tables, children first: deleted explicitly because some keys restrict deletion. */
-const OWNED_TABLES = ['delivery_revisions', 'sap_deliveries'];
+const OWNED_TABLES = ['run_inputs', 'syrup_draws', 'fuel_uses', 'boil_runs', 'delivery_revisions', 'sap_deliveries'];
 
-/** Removes a generated co-op of this scale and everything of it. */
-export async function dropScale(sequelize: Sequelize, scale: number, transaction: Transaction) {
+/** Removes a generated co-op (by name) and everything of it. */
+export async function dropCoop(sequelize: Sequelize, name: string, transaction: Transaction) {
   const [coop] = await sequelize.query<{ id: string }>('SELECT id FROM cooperatives WHERE name = :name', {
-    replacements: { name: scaleCoopName(scale) },
+    replacements: { name },
     type: QueryTypes.SELECT,
     transaction,
   });
@@ -68,18 +101,23 @@ export async function dropScale(sequelize: Sequelize, scale: number, transaction
   await sequelize.query('DELETE FROM cooperatives WHERE id = :id', { replacements: { id: coop.id }, transaction });
 }
 
+/** Generates (or regenerates) the benchmark co-op of scale `scale` (npm run db:seed -- --scale N). */
+export function seedScale(sequelize: Sequelize, scale: number, options: { now?: Date } = {}): Promise<GeneratedCoop> {
+  return seedCoop(sequelize, scaleSpec(scale), options);
+}
+
 /**
- * Generates (or regenerates) the co-op of scale `scale`. The open season began 35 days before
+ * Generates (or regenerates) a co-op of the given shape. The open season began 35 days before
  * `now` and ends 25 days after; last year's season has the same shape and is settled.
  */
-export async function seedScale(sequelize: Sequelize, scale: number, { now = new Date() }: { now?: Date } = {}): Promise<ScaleSeed> {
-  if (!Number.isInteger(scale) || scale < 1 || scale > 1000) throw new RangeError('The scale is a whole number from 1 to 1000.');
+export async function seedCoop(sequelize: Sequelize, spec: CoopSpec, { now = new Date() }: { now?: Date } = {}): Promise<GeneratedCoop> {
+  const zone = spec.timeZone ?? SCALE_TIME_ZONE;
   const hash = await bcrypt.hash(DEMO_PASSWORD, 10);
-  const today = DateTime.fromJSDate(now, { zone: SCALE_TIME_ZONE }).startOf('day');
+  const today = DateTime.fromJSDate(now, { zone }).startOf('day');
   const opens = today.minus({ days: 35 });
   const closes = today.plus({ days: 25 });
-  const households = HOUSEHOLDS_PER_UNIT * scale;
-  const evaporators = EVAPORATORS_PER_UNIT * scale;
+  const { households, evaporators } = spec;
+  const email = (who: string) => `${who}@${spec.domain}`;
 
   return sequelize.transaction(async (transaction) => {
     const q = (sql: string, replacements: Record<string, unknown> = {}) =>
@@ -87,20 +125,20 @@ export async function seedScale(sequelize: Sequelize, scale: number, { now = new
     const one = async <T extends object>(sql: string, replacements: Record<string, unknown> = {}) =>
       (await sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT, transaction }))[0];
 
-    await dropScale(sequelize, scale, transaction);
+    await dropCoop(sequelize, spec.name, transaction);
     const { id: cooperativeId } = await one<{ id: string }>(
       `INSERT INTO cooperatives (name, time_zone, elevation_m, unit_system, currency)
-       VALUES (:name, :zone, 280, 'us', 'USD') RETURNING id`,
-      { name: scaleCoopName(scale), zone: SCALE_TIME_ZONE },
+       VALUES (:name, :zone, 280, :units, :currency) RETURNING id`,
+      { name: spec.name, zone, units: spec.unitSystem ?? 'us', currency: spec.currency ?? 'USD' },
     );
     const { id: openSeasonId } = await one<{ id: string }>(
       `INSERT INTO seasons (cooperative_id, label, starts_on, ends_on, status, fuel_price_cents)
-       VALUES (:cooperativeId, :label, :startsOn, :endsOn, 'open', 26000) RETURNING id`,
+       VALUES (:cooperativeId, :label, :startsOn, :endsOn, 'open', ${OIL_CENTS_PER_L}) RETURNING id`,
       { cooperativeId, label: `Season ${opens.year}`, startsOn: opens.toISODate(), endsOn: closes.toISODate() },
     );
     const { id: lastSeasonId } = await one<{ id: string }>(
       `INSERT INTO seasons (cooperative_id, label, starts_on, ends_on, status, fuel_price_cents)
-       VALUES (:cooperativeId, :label, :startsOn, :endsOn, 'settled', 24500) RETURNING id`,
+       VALUES (:cooperativeId, :label, :startsOn, :endsOn, 'settled', ${OIL_CENTS_PER_L - 8}) RETURNING id`,
       {
         cooperativeId,
         label: `Season ${opens.year - 1}`,
@@ -121,12 +159,12 @@ export async function seedScale(sequelize: Sequelize, scale: number, { now = new
     );
     await q(
       `INSERT INTO users (cooperative_id, household_id, name, email, password_hash, role)
-       SELECT :cooperativeId, h.id, 'Member of ' || h.name, 'member-' || substr(h.name, 10) || '@scale-' || :scale || '.example', :hash, 'member'
+       SELECT :cooperativeId, h.id, 'Member of ' || h.name, 'member-' || substr(h.name, 10) || '@' || :domain, :hash, 'member'
          FROM households h WHERE h.cooperative_id = :cooperativeId;
        INSERT INTO users (cooperative_id, household_id, name, email, password_hash, role) VALUES
-         (:cooperativeId, NULL, 'Scale Coordinator', :coordinator, :hash, 'coordinator'),
-         (:cooperativeId, NULL, 'Scale Sugarmaker', :sugarmaker, :hash, 'sugarmaker')`,
-      { cooperativeId, scale, hash, coordinator: scaleEmail(scale, 'coordinator'), sugarmaker: scaleEmail(scale, 'sugarmaker') },
+         (:cooperativeId, NULL, 'Generated Coordinator', :coordinator, :hash, 'coordinator'),
+         (:cooperativeId, NULL, 'Generated Sugarmaker', :sugarmaker, :hash, 'sugarmaker')`,
+      { cooperativeId, domain: spec.domain, hash, coordinator: email('coordinator'), sugarmaker: email('sugarmaker') },
     );
 
     // Two slots a day on every evaporator across the whole season (07–12 and 13–18 local
@@ -148,30 +186,30 @@ export async function seedScale(sequelize: Sequelize, scale: number, { now = new
         openSeasonId,
         opens: opens.toISODate(),
         days: Math.round(closes.diff(opens, 'days').days),
-        zone: SCALE_TIME_ZONE,
+        zone,
         households,
         now,
       },
     );
 
     const steps: [string, (ctx: StepContext) => Promise<void>][] = [];
-    const ctx: StepContext = { sequelize, transaction, scale, cooperativeId, openSeasonId, lastSeasonId, now, today, opens, q, one };
+    const ctx: StepContext = { sequelize, transaction, spec, zone, cooperativeId, openSeasonId, lastSeasonId, now, today, opens, q, one };
     for (const [table, step] of SCALE_STEPS) {
       if (await tableExists(sequelize, table, transaction)) steps.push([table, step]);
     }
     for (const [, step] of steps) await step(ctx);
 
     const counts: Record<string, number> = {};
-    for (const table of ['households', 'users', 'evaporators', 'boil_slots', ...SCALE_STEPS.map(([t]) => t)]) {
+    for (const table of ['households', 'users', 'evaporators', 'boil_slots', 'sap_deliveries', 'boil_runs', 'run_inputs', 'syrup_draws', 'fuel_uses']) {
       if (await tableExists(sequelize, table, transaction)) counts[table] = await count(sequelize, table, cooperativeId, transaction);
     }
     return {
-      scale,
+      name: spec.name,
       cooperativeId,
       openSeasonId,
       lastSeasonId,
-      coordinatorEmail: scaleEmail(scale, 'coordinator'),
-      memberEmail: scaleEmail(scale, 'member-00001'),
+      coordinatorEmail: email('coordinator'),
+      memberEmail: email('member-00001'),
       password: DEMO_PASSWORD,
       counts,
     };
@@ -181,7 +219,8 @@ export async function seedScale(sequelize: Sequelize, scale: number, { now = new
 export interface StepContext {
   sequelize: Sequelize;
   transaction: Transaction;
-  scale: number;
+  spec: CoopSpec;
+  zone: string;
   cooperativeId: string;
   openSeasonId: string;
   lastSeasonId: string;
@@ -197,7 +236,7 @@ export interface StepContext {
  * own sweetness (1.4–3.2 °Bx, as from red-maple-heavy to sugar-maple-heavy bushes), collected
  * the day it arrives or the day before; one lot in 50 rejected as cloudy, with its reason.
  */
-async function lots({ q, scale, cooperativeId, openSeasonId, opens, now }: StepContext) {
+async function lots({ q, spec, zone, cooperativeId, openSeasonId, opens, now }: StepContext) {
   await q(
     `WITH h AS (SELECT id, row_number() OVER (ORDER BY name) - 1 AS n FROM households WHERE cooperative_id = :cooperativeId),
           sm AS (SELECT id FROM users WHERE cooperative_id = :cooperativeId AND role = 'sugarmaker' LIMIT 1),
@@ -217,22 +256,113 @@ async function lots({ q, scale, cooperativeId, openSeasonId, opens, now }: StepC
             (CASE WHEN g.g % 50 = 0 THEN 'reject' ELSE 'accept' END)::delivery_decision,
             (CASE WHEN g.g % 50 = 0 THEN 'rejected' ELSE 'accepted' END)::delivery_status,
             CASE WHEN g.g % 50 = 0 THEN 'Cloudy sap: past its best.' END,
-            (SELECT id FROM sm), 'scale-' || :scale || '-' || g.g
+            (SELECT id FROM sm), 'generated-' || :cooperativeId || '-' || g.g
        FROM g JOIN h ON h.n = (g.g * 13) % :households`,
     {
       cooperativeId,
       openSeasonId,
       opens: opens.toISO(),
       now,
-      total: LOTS_PER_UNIT * scale,
-      households: HOUSEHOLDS_PER_UNIT * scale,
-      zone: SCALE_TIME_ZONE,
-      scale,
+      total: spec.lots,
+      households: spec.households,
+      zone,
     },
   );
 }
 
-/** Feature tables filled once they exist, in dependency order. */
-const SCALE_STEPS: [string, (ctx: StepContext) => Promise<void>][] = [['sap_deliveries', lots]];
+/**
+ * Finished boil runs over the season so far: the accepted lots in order of arrival, about ten
+ * whole lots a run, each run starting half an hour after its last lot arrived and lasting three
+ * hours, on the evaporators in turn; the latest lots stay in the queue. Each run's syrup is 95 %
+ * of what its sugar allows at 66.9 °Bx (lib/sugar), drawn off twice, lighter early in the
+ * season and darker later; its oil is one litre per 40 L of water evaporated (from memory: the
+ * order of an oil-fired evaporator's burn).
+ */
+async function runs({ q, sequelize, transaction, spec, cooperativeId, openSeasonId, opens, now }: StepContext) {
+  await q(
+    `WITH sm AS (SELECT id FROM users WHERE cooperative_id = :cooperativeId AND role = 'sugarmaker' LIMIT 1),
+          lots AS (SELECT id, received_at, volume_l, row_number() OVER (ORDER BY received_at, id) AS i, count(*) OVER () AS n
+                     FROM sap_deliveries WHERE cooperative_id = :cooperativeId AND season_id = :openSeasonId AND status = 'accepted'),
+          boil AS (SELECT id, volume_l, ceil(i * :runs::numeric / (n - :waiting))::int AS r FROM lots WHERE i <= n - :waiting),
+          planned AS (SELECT b.r, max(l.received_at) + interval '30 minutes' AS started_at
+                        FROM boil b JOIN lots l ON l.id = b.id GROUP BY b.r),
+          e AS (SELECT id, row_number() OVER (ORDER BY name) - 1 AS k FROM evaporators WHERE cooperative_id = :cooperativeId),
+          made AS (
+            INSERT INTO boil_runs (cooperative_id, season_id, evaporator_id, run_number, lot_code, status, started_at, finished_at,
+                                   started_by_id, finished_by_id)
+            SELECT :cooperativeId, :openSeasonId, e.id, p.r, :year || '-' || lpad(p.r::text, 3, '0'), 'finished', p.started_at,
+                   least(p.started_at + interval '3 hours', :now::timestamptz), (SELECT id FROM sm), (SELECT id FROM sm)
+              FROM planned p JOIN e ON e.k = (p.r - 1) % :evaporators
+            RETURNING id, run_number, started_at)
+     INSERT INTO run_inputs (cooperative_id, run_id, delivery_id, litres, taken_at, taken_by_id)
+     SELECT :cooperativeId, made.id, b.id, b.volume_l, made.started_at, (SELECT id FROM sm)
+       FROM boil b JOIN made ON made.run_number = b.r`,
+    {
+      cooperativeId,
+      openSeasonId,
+      runs: spec.runs,
+      waiting: spec.waiting,
+      evaporators: spec.evaporators,
+      year: String(opens.year),
+      now,
+    },
+  );
 
-export const SCALE_SHAPE = { HOUSEHOLDS_PER_UNIT, LOTS_PER_UNIT, RUNS_PER_UNIT, EVAPORATORS_PER_UNIT };
+  const inputs = await sequelize.query<{ runId: string; startedAt: Date; finishedAt: Date; volumeL: number; brix: number }>(
+    `SELECT r.id AS "runId", r.started_at AS "startedAt", r.finished_at AS "finishedAt", d.volume_l AS "volumeL", d.brix::float8 AS brix
+       FROM run_inputs ri JOIN boil_runs r ON r.id = ri.run_id JOIN sap_deliveries d ON d.id = ri.delivery_id
+      WHERE ri.cooperative_id = :cooperativeId ORDER BY r.id`,
+    { replacements: { cooperativeId }, type: QueryTypes.SELECT, transaction },
+  );
+  const perRun = new Map<string, { startedAt: Date; finishedAt: Date; syrupL: number; waterL: number }>();
+  for (const i of inputs) {
+    const run = perRun.get(i.runId) ?? { startedAt: i.startedAt, finishedAt: i.finishedAt, syrupL: 0, waterL: 0 };
+    run.syrupL += syrupLitres(i.volumeL, i.brix, SYRUP_BRIX);
+    run.waterL += waterToEvaporateL(i.volumeL, i.brix, SYRUP_BRIX);
+    perRun.set(i.runId, run);
+  }
+  const span = now.getTime() - opens.toMillis();
+  const draws = { run: [] as string[], at: [] as Date[], litres: [] as number[], tr: [] as number[], grade: [] as string[] };
+  const fuel = { run: [] as string[], at: [] as Date[], litres: [] as number[], cents: [] as number[] };
+  for (const [runId, r] of perRun) {
+    const progress = Math.min(1, Math.max(0, (r.startedAt.getTime() - opens.toMillis()) / span));
+    const syrup = Math.round(r.syrupL * 0.95 * 1000) / 1000;
+    const first = Math.round(syrup * 0.45 * 1000) / 1000;
+    const mid = new Date((r.startedAt.getTime() + r.finishedAt.getTime()) / 2);
+    for (const [at, litres, shade] of [
+      [mid, first, 0],
+      [r.finishedAt, Math.round((syrup - first) * 1000) / 1000, 4],
+    ] as const) {
+      const transmittance = Math.round((84 - 62 * progress - shade) * 10) / 10;
+      draws.run.push(runId);
+      draws.at.push(at);
+      draws.litres.push(litres);
+      draws.tr.push(transmittance);
+      draws.grade.push(gradeClass(transmittance));
+    }
+    const oilL = Math.round((r.waterL / 40) * 10) / 10;
+    fuel.run.push(runId);
+    fuel.at.push(r.finishedAt);
+    fuel.litres.push(oilL);
+    fuel.cents.push(Math.round(oilL * OIL_CENTS_PER_L));
+  }
+  await sequelize.query(
+    `INSERT INTO syrup_draws (cooperative_id, run_id, drawn_at, litres, brix, transmittance_pct, grade_class, temperature_c)
+     SELECT $1, run, at, litres, ${SYRUP_BRIX}, tr, grade, 104
+       FROM unnest($2::uuid[], $3::timestamptz[], $4::float8[], $5::float8[], $6::text[]) AS t(run, at, litres, tr, grade)`,
+    { bind: [cooperativeId, draws.run, draws.at, draws.litres, draws.tr, draws.grade], transaction },
+  );
+  await sequelize.query(
+    `INSERT INTO fuel_uses (cooperative_id, run_id, kind, quantity, unit, cost_cents, recorded_at)
+     SELECT $1, run, 'oil', litres, 'litre', cents, at
+       FROM unnest($2::uuid[], $3::timestamptz[], $4::float8[], $5::int[]) AS t(run, at, litres, cents)`,
+    { bind: [cooperativeId, fuel.run, fuel.at, fuel.litres, fuel.cents], transaction },
+  );
+}
+
+/** Feature tables filled once they exist, in dependency order. */
+const SCALE_STEPS: [string, (ctx: StepContext) => Promise<void>][] = [
+  ['sap_deliveries', lots],
+  ['boil_runs', runs],
+];
+

@@ -40,7 +40,11 @@ beforeAll(async () => {
   deliveriesLanded = (await writer.post('/api/deliveries', {})).status !== 404;
 });
 
-afterAll(closeTestDb);
+afterAll(async () => {
+  await rows("DELETE FROM sap_deliveries WHERE idempotency_key LIKE 'restart-%'").catch(() => undefined);
+  await rows("DELETE FROM boil_slots WHERE note LIKE 'restart-%'");
+  await closeTestDb();
+});
 
 /** One request, answered or not; a network error or timeout counts as a failure. */
 async function attempt(client: Client, method: string, path: string, body?: unknown) {
