@@ -7,7 +7,10 @@ import { getSequelize } from '@/db';
 import { seedScale, SCALE_TIME_ZONE, type GeneratedCoop } from '@/db/seeds/scale';
 import { apiFigures, apiRoutes, BENCH_NOTE, probe, runApi, type ApiContext, type RouteSpec } from './api';
 import { summarise } from './load';
+import { liveQueue } from './live';
+import { pages } from './pages';
 import { writeReport, type Report } from './report';
+import { settlementAtScale } from './settlement';
 import { signIn, startApp, startBaseline, stopAll, stopProcess } from './servers';
 
 const ALL_SECTIONS = ['api', 'scaleout', 'live', 'settlement', 'pages', 'micro'] as const;
@@ -18,6 +21,8 @@ const { values: args } = parseArgs({
     rounds: { type: 'string', default: '3' },
     duration: { type: 'string', default: '10' },
     scale: { type: 'string', default: '1' },
+    'settlement-scales': { type: 'string', default: '10,100' },
+    'lighthouse-runs': { type: 'string', default: '3' },
   },
 });
 const sections = new Set(args.only ? args.only.split(',') : ALL_SECTIONS);
@@ -141,7 +146,37 @@ async function main() {
         report.figures.push({ section: 'scaleout', name: `${m.spec.name}: two processes`, value: null, unit: 'req/s', baseline: null, ratio: null, target: '≥ 1.3× one process', met: false, note: m.note });
       }
       report.commands.push('scale-out: autocannon with both server addresses (its connections spread evenly over the two processes), interleaved with the one-process run');
+      if (sections.has('live')) {
+        log('Live queue across two processes');
+        report.figures.push(...(await liveQueue(both, { counts: [500], durationS, log, label: ' on two processes' })));
+      }
       await stopProcess(b.child);
+    }
+
+    if (sections.has('live')) {
+      log('Live queue');
+      if ((await probe(specs.find((x) => x.name === 'GET /api/queue')!, ctx)).available) {
+        report.figures.push(...(await liveQueue(ctx, { counts: [100, 500], durationS, log })));
+        report.commands.push(`live queue: viewers in a separate process (bench/viewers.ts), a drop-off posted every 200 ms for ${durationS} s while autocannon loads GET /api/slots`);
+      } else {
+        report.figures.push({ section: 'live', name: 'live queue', value: null, unit: 'ms', baseline: null, ratio: null, target: null, met: false, note: 'GET /api/queue not on this build yet' });
+      }
+    }
+
+    if (sections.has('pages')) {
+      log('Pages (Lighthouse, mobile)');
+      const demoCookie = await signIn(a.url, 'coordinator@larkspur.example', seed.password);
+      report.figures.push(...(await pages(a.url, demoCookie, { runs: Number(args['lighthouse-runs']), log })));
+      report.commands.push(
+        `CHROME_PATH=/usr/bin/chromium lighthouse URL --only-categories=performance,accessibility (mobile preset) --extra-headers '{"Cookie": …}', signed in as coordinator@larkspur.example, ${args['lighthouse-runs']} interleaved rounds`,
+      );
+    }
+
+    if (sections.has('settlement')) {
+      log('Settlement at scale');
+      const scales = args['settlement-scales'].split(',').map(Number);
+      report.figures.push(...(await settlementAtScale(sql, a.url, { scales, repeats: 3, log, report })));
+      report.commands.push(`settlement: db:seed -- --scale ${scales.join(' and ')}, then GET settlement and ledger 3 times each (after one warm-up) and 3 runs finished, medians`);
     }
     await stopProcess(baseline.child);
     await stopProcess(a.child);

@@ -33,7 +33,8 @@ for p in "$BENCH_PORT" $((BENCH_PORT + 1)) $((BENCH_PORT + 2)); do
 done
 
 log "A fresh benchmark database (brixhouse_bench)"
-bash scripts/db.sh reset brixhouse_bench
+bash scripts/db.sh reset brixhouse_bench --force
+bash scripts/db.sh explain brixhouse_bench
 npm run --silent db:migrate -- --quiet
 npm run --silent db:seed
 

@@ -83,11 +83,21 @@ reset() {
   psql_super -c "CREATE DATABASE \"$db\" OWNER $PG_USER"
 }
 
+# Benchmarks: log the plan (with row counts) of every statement over 200 ms in one database.
+explain() {
+  local db=$1
+  psql_super -c "ALTER DATABASE \"$db\" SET session_preload_libraries = 'auto_explain'" \
+    -c "ALTER DATABASE \"$db\" SET auto_explain.log_min_duration = '200ms'" \
+    -c "ALTER DATABASE \"$db\" SET auto_explain.log_analyze = on" \
+    -c "ALTER DATABASE \"$db\" SET auto_explain.log_timing = off"
+}
+
 case "${1:-start}" in
   start) start ;;
   stop) stop ;;
   restart) "${RUN[@]}" "$PGBIN/pg_ctl" -D "$PG_DATA" -w -s -m fast restart > /dev/null ;;
   status) "${RUN[@]}" "$PGBIN/pg_ctl" -D "$PG_DATA" status ;;
   reset) reset "$2" "${3:-}" ;;
-  *) echo "usage: db.sh start|stop|restart|status|reset DBNAME [--force]" >&2; exit 2 ;;
+  explain) explain "$2" ;;
+  *) echo "usage: db.sh start|stop|restart|status|reset DBNAME [--force]|explain DBNAME" >&2; exit 2 ;;
 esac

@@ -2,7 +2,8 @@ import bcrypt from 'bcryptjs';
 import { DateTime } from 'luxon';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { DEMO_PASSWORD } from '@/db/seeds/demo';
-import { gradeClass, syrupLitres, waterToEvaporateL } from '@/lib/sugar';
+import { gradeClass, syrupLitres, waterToEvaporateL, type GradeClass } from '@/lib/sugar';
+import { allocateRunRows } from '@/lib/ledger/rules';
 
 /**
  * A generated large co-op for benchmarks: per unit of scale 20 households, 2,000 sap lots and
@@ -83,7 +84,10 @@ async function count(sequelize: Sequelize, table: string, cooperativeId: string,
 }
 
 /** Feature tables, children first: deleted explicitly because some keys restrict deletion. */
-const OWNED_TABLES = ['run_inputs', 'syrup_draws', 'fuel_uses', 'boil_runs', 'delivery_revisions', 'sap_deliveries'];
+const OWNED_TABLES = [
+  'payments', 'settlements', 'allocation_revisions', 'allocations', 'season_fees',
+  'run_inputs', 'syrup_draws', 'fuel_uses', 'boil_runs', 'delivery_revisions', 'sap_deliveries',
+];
 
 /** Removes a generated co-op (by name) and everything of it. */
 export async function dropCoop(sequelize: Sequelize, name: string, transaction: Transaction) {
@@ -200,7 +204,7 @@ export async function seedCoop(sequelize: Sequelize, spec: CoopSpec, { now = new
     for (const [, step] of steps) await step(ctx);
 
     const counts: Record<string, number> = {};
-    for (const table of ['households', 'users', 'evaporators', 'boil_slots', 'sap_deliveries', 'boil_runs', 'run_inputs', 'syrup_draws', 'fuel_uses']) {
+    for (const table of ['households', 'users', 'evaporators', 'boil_slots', 'sap_deliveries', 'boil_runs', 'run_inputs', 'syrup_draws', 'fuel_uses', 'allocations']) {
       if (await tableExists(sequelize, table, transaction)) counts[table] = await count(sequelize, table, cooperativeId, transaction);
     }
     return {
@@ -360,9 +364,64 @@ async function runs({ q, sequelize, transaction, spec, cooperativeId, openSeason
   );
 }
 
+/**
+ * Each finished run's allocation, as finishing it through the Runs API makes it: the season
+ * ledger's own rule (lib/ledger/rules, by sugar through lib/sugar), stored in bulk.
+ */
+async function allocations({ sequelize, transaction, cooperativeId, openSeasonId }: StepContext) {
+  const select = <T extends object>(sql: string) => sequelize.query<T>(sql, { replacements: { cooperativeId }, type: QueryTypes.SELECT, transaction });
+  const inputs = await select<{ runId: string; householdId: string; litres: number; brix: number }>(
+    `SELECT ri.run_id AS "runId", d.household_id AS "householdId", ri.litres, d.brix::float8 AS brix
+       FROM run_inputs ri JOIN sap_deliveries d ON d.id = ri.delivery_id
+      WHERE ri.cooperative_id = :cooperativeId AND d.status = 'accepted' ORDER BY ri.created_at, ri.id`,
+  );
+  const draws = await select<{ runId: string; litres: number; gradeClass: GradeClass }>(
+    'SELECT run_id AS "runId", litres, grade_class AS "gradeClass" FROM syrup_draws WHERE cooperative_id = :cooperativeId',
+  );
+  const fuel = await select<{ runId: string; cents: string }>(
+    'SELECT run_id AS "runId", sum(cost_cents) AS cents FROM fuel_uses WHERE cooperative_id = :cooperativeId GROUP BY run_id',
+  );
+  const group = <T extends { runId: string }>(xs: T[]) => {
+    const m = new Map<string, T[]>();
+    for (const x of xs) m.set(x.runId, [...(m.get(x.runId) ?? []), x]);
+    return m;
+  };
+  const inputsOf = group(inputs);
+  const drawsOf = group(draws);
+  const fuelOf = new Map(fuel.map((f) => [f.runId, Number(f.cents)]));
+  const cols = { run: [] as string[], household: [] as string[], sap: [] as number[], sugar: [] as number[], share: [] as number[] };
+  const ml = { golden: [] as number[], amber: [] as number[], dark: [] as number[], veryDark: [] as number[], fuel: [] as number[] };
+  for (const [runId, runInputs] of inputsOf) {
+    for (const a of allocateRunRows(runInputs, drawsOf.get(runId) ?? [], fuelOf.get(runId) ?? 0)) {
+      cols.run.push(runId);
+      cols.household.push(a.householdId);
+      cols.sap.push(a.sapL);
+      cols.sugar.push(a.sugarKg);
+      cols.share.push(a.share);
+      ml.golden.push(a.syrupByClassMl.golden);
+      ml.amber.push(a.syrupByClassMl.amber);
+      ml.dark.push(a.syrupByClassMl.dark);
+      ml.veryDark.push(a.syrupByClassMl['very-dark']);
+      ml.fuel.push(a.fuelCents);
+    }
+  }
+  await sequelize.query(
+    `INSERT INTO allocations (cooperative_id, season_id, run_id, household_id, sap_l, sugar_kg, share,
+                              syrup_golden_ml, syrup_amber_ml, syrup_dark_ml, syrup_very_dark_ml, fuel_cents)
+     SELECT $1, $2, run, household, sap, sugar, share, g, a, d, v, f
+       FROM unnest($3::uuid[], $4::uuid[], $5::float8[], $6::float8[], $7::float8[], $8::int[], $9::int[], $10::int[], $11::int[], $12::int[])
+         AS t(run, household, sap, sugar, share, g, a, d, v, f)`,
+    {
+      bind: [cooperativeId, openSeasonId, cols.run, cols.household, cols.sap, cols.sugar, cols.share, ml.golden, ml.amber, ml.dark, ml.veryDark, ml.fuel],
+      transaction,
+    },
+  );
+}
+
 /** Feature tables filled once they exist, in dependency order. */
 const SCALE_STEPS: [string, (ctx: StepContext) => Promise<void>][] = [
   ['sap_deliveries', lots],
   ['boil_runs', runs],
+  ['allocations', allocations],
 ];
 

@@ -27,7 +27,7 @@ const otherCoop = (roleDenied: Actor[] = []): Expect =>
   Object.fromEntries(ACTORS.map((a) => [a, a === 'anonymous' ? 401 : roleDenied.includes(a) ? [403, 404, 422] : [404, 422]])) as Expect;
 
 interface Fixtures {
-  own: { coop: string; season: string; brennan: string; szabo: string; evaporator: string };
+  own: { coop: string; season: string; lastSeason: string; brennan: string; szabo: string; evaporator: string };
   other: GeneratedCoop & { household: string; evaporator: string; person: string; ids: Set<string> };
 }
 
@@ -266,6 +266,50 @@ const TABLE: Case[] = [
       },
     ];
   }),
+  // The season ledger. Closing and sending act on last year's settled season: refused as done
+  // already (409) or a no-op, so the open season other tests use stays open.
+  { route: 'GET /api/seasons/[id]/ledger', scope: 'co-op', expect: everyone(200), request: async (f) => ({ path: `/api/seasons/${f.own.season}/ledger` }) },
+  { route: 'GET /api/seasons/[id]/ledger', scope: 'other-coop', expect: otherCoop(), request: async (f) => ({ path: `/api/seasons/${f.other.openSeasonId}/ledger` }) },
+  {
+    route: 'GET /api/seasons/[id]/settlement',
+    scope: 'co-op',
+    expect: everyone(200),
+    request: async (f) => ({ path: `/api/seasons/${f.own.season}/settlement` }),
+    check: (body, actor, f) => {
+      if (actor === 'member') for (const h of (body as { households: { householdId: string }[] }).households) expect(h.householdId).toBe(f.own.brennan);
+    },
+  },
+  { route: 'GET /api/seasons/[id]/settlement', scope: 'other-coop', expect: otherCoop(), request: async (f) => ({ path: `/api/seasons/${f.other.openSeasonId}/settlement` }) },
+  { route: 'POST /api/seasons/[id]/close', scope: 'co-op', expect: coordinatorOnly([200, 409]), request: async (f) => ({ path: `/api/seasons/${f.own.lastSeason}/close`, body: {} }) },
+  { route: 'POST /api/seasons/[id]/close', scope: 'other-coop', expect: otherCoop(['sugarmaker', 'member']), request: async (f) => ({ path: `/api/seasons/${f.other.lastSeasonId}/close`, body: {} }) },
+  {
+    route: 'POST /api/seasons/[id]/settlement/send',
+    scope: 'co-op',
+    expect: coordinatorOnly([200, 202, 409]),
+    request: async (f) => ({ path: `/api/seasons/${f.own.lastSeason}/settlement/send`, body: {} }),
+  },
+  {
+    route: 'POST /api/seasons/[id]/settlement/send',
+    scope: 'other-coop',
+    expect: otherCoop(['sugarmaker', 'member']),
+    request: async (f) => ({ path: `/api/seasons/${f.other.lastSeasonId}/settlement/send`, body: {} }),
+  },
+  { route: 'PUT /api/seasons/[id]/fees', scope: 'co-op', expect: coordinatorOnly([200, 409]), request: async (f) => ({ path: `/api/seasons/${f.own.season}/fees`, body: { householdId: f.own.szabo, feeCents: 0 } }) },
+  {
+    route: 'PUT /api/seasons/[id]/fees',
+    scope: 'other-coop',
+    expect: otherCoop(['sugarmaker', 'member']),
+    request: async (f) => ({ path: `/api/seasons/${f.other.openSeasonId}/fees`, body: { householdId: f.other.household, feeCents: 0 } }),
+  },
+  ...(f_statements()),
+  { route: 'POST /api/runs/[id]/reopen', scope: 'other-coop', expect: otherCoop(['sugarmaker', 'member']), request: async (f) => ({ path: `/api/runs/${await run(f.other.cooperativeId, f.other.household)}/reopen`, body: { reason: 'Matrix.' } }) },
+  {
+    route: 'POST /api/payments/webhook',
+    scope: 'co-op',
+    // The payment service calls it unsigned by anybody's session: a missing signature is refused.
+    expect: { anonymous: 400, coordinator: 400, sugarmaker: 400, member: 400 },
+    request: async () => ({ path: '/api/payments/webhook', body: { id: 'evt_matrix', type: 'checkout.session.completed' } }),
+  },
   {
     route: 'POST /api/uploads',
     scope: 'co-op',
@@ -278,6 +322,39 @@ const TABLE: Case[] = [
   },
 ];
 
+/** Statements of last year's settled season: the member's household's and another's. */
+function f_statements(): Case[] {
+  const statement = async (household: string) =>
+    (await rows<{ id: string }>('SELECT id FROM settlements WHERE household_id = :household ORDER BY settled_at DESC LIMIT 1', { household }))[0]?.id ?? randomUUID();
+  return [
+    {
+      route: 'GET /api/statements/[id]',
+      scope: 'own-household',
+      expect: { anonymous: 401, coordinator: 200, sugarmaker: [403, 404], member: 200 },
+      request: async (f) => ({ path: `/api/statements/${await statement(f.own.brennan)}` }),
+    },
+    {
+      route: 'GET /api/statements/[id]',
+      scope: 'other-household',
+      expect: { anonymous: 401, coordinator: 200, sugarmaker: [403, 404], member: [403, 404] },
+      request: async (f) => ({ path: `/api/statements/${await statement(f.own.szabo)}` }),
+    },
+    {
+      route: 'POST /api/statements/[id]/payments',
+      scope: 'other-household',
+      // One cent by cheque: accepted, or refused as more than is owed on a statement already paid.
+      expect: { anonymous: 401, coordinator: [201, 409, 422], sugarmaker: [403, 404], member: [403, 404] },
+      request: async (f) => ({ path: `/api/statements/${await statement(f.own.szabo)}/payments`, body: { amountCents: 1, method: 'cheque' } }),
+    },
+    {
+      route: 'POST /api/statements/[id]/checkout',
+      scope: 'other-household',
+      expect: { anonymous: 401, coordinator: [200, 201, 403, 404, 409], sugarmaker: [403, 404], member: [403, 404] },
+      request: async (f) => ({ path: `/api/statements/${await statement(f.own.szabo)}/checkout`, body: {} }),
+    },
+  ];
+}
+
 beforeAll(async () => {
   const other = await generateCoop(OTHER_COOP);
   const [own] = await rows<{ coop: string; season: string; evaporator: string }>(
@@ -285,6 +362,7 @@ beforeAll(async () => {
        FROM cooperatives c JOIN seasons s ON s.cooperative_id = c.id AND s.status = 'open' WHERE c.name = 'Larkspur Hollow Sugar Cooperative'`,
   );
   const households = await rows<{ id: string; name: string }>('SELECT id, name FROM households WHERE cooperative_id = :c', { c: own.coop });
+  const [last] = await rows<{ id: string }>("SELECT id FROM seasons WHERE cooperative_id = :c AND status <> 'open' ORDER BY starts_on LIMIT 1", { c: own.coop });
   const [otherHousehold] = await rows<{ id: string }>('SELECT id FROM households WHERE cooperative_id = :c ORDER BY name LIMIT 1', { c: other.cooperativeId });
   const [otherEvaporator] = await rows<{ id: string }>('SELECT id FROM evaporators WHERE cooperative_id = :c LIMIT 1', { c: other.cooperativeId });
   const [otherPerson] = await rows<{ id: string }>('SELECT id FROM users WHERE cooperative_id = :c LIMIT 1', { c: other.cooperativeId });
@@ -300,6 +378,7 @@ beforeAll(async () => {
     own: {
       coop: own.coop,
       season: own.season,
+      lastSeason: last.id,
       evaporator: own.evaporator,
       brennan: households.find((h) => h.name === 'Brennan')!.id,
       szabo: households.find((h) => h.name === 'Szabo')!.id,
