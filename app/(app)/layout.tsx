@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import type { ReactNode } from 'react';
 import { requireContext } from '@/lib/server/context';
-import { getCooperative } from '@/lib/coop';
+import { getCooperative } from '@/lib/coop/service';
 import { AppNav } from '@/components/shell/app-nav';
 import { NAV, ROLE_LABEL } from '@/components/shell/nav-items';
 import { SignOutButton } from '@/components/shell/sign-out-button';

@@ -13,7 +13,7 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { toast } from '@/components/ui/toaster';
 import { ApiClientError, apiSend, fetcher } from '@/lib/client/api';
-import type { SlotDto } from '@/lib/slots';
+import type { SlotDto } from '@/lib/slots/types';
 import { formatSlotRange } from '@/lib/time';
 import { cn } from '@/lib/utils';
 import type { CalendarSetup } from './calendar-types';

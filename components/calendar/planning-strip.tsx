@@ -4,7 +4,7 @@ import useSWR from 'swr';
 import { Alert } from '@/components/ui/alert';
 import { fetcher } from '@/lib/client/api';
 import { formatVolume, type UnitSystem } from '@/lib/sugar/units';
-import type { PlanningDto } from '@/lib/planning-data';
+import type { PlanningDto } from '@/lib/planning/types';
 import { formatHours, formatMoment, hourCount } from './slot-time';
 
 export const PLANNING_KEY = '/api/planning';

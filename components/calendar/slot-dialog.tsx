@@ -8,7 +8,7 @@ import { Button } from '@/components/ui/button';
 import { Dialog, DialogContent } from '@/components/ui/dialog';
 import { Field, Input, Textarea, fieldA11y } from '@/components/ui/input';
 import { ApiClientError } from '@/lib/client/api';
-import type { SlotDto } from '@/lib/slots';
+import type { SlotDto } from '@/lib/slots/types';
 import { formatVolume } from '@/lib/sugar/units';
 import { formatSlotRange } from '@/lib/time';
 import type { CalendarSetup } from './calendar-types';

@@ -14,8 +14,8 @@ import { toast } from '@/components/ui/toaster';
 import { Alert } from '@/components/ui/alert';
 import { ApiClientError, apiSend, applyFieldErrors, fetcher } from '@/lib/client/api';
 import { ROLES, type Role } from '@/lib/roles';
-import { HouseholdInput, PersonInput } from '@/lib/validations/households';
-import type { HouseholdDto, PersonDto } from '@/lib/households';
+import { HouseholdInput, PersonInput } from '@/lib/households/schema';
+import type { HouseholdDto, PersonDto } from '@/lib/households/types';
 
 const ROLE_NAMES: Record<Role, string> = { coordinator: 'Coordinator', sugarmaker: 'Sugarmaker', member: 'Member' };
 

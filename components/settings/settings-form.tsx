@@ -9,7 +9,7 @@ import { Field, Input, fieldA11y } from '@/components/ui/input';
 import { Alert } from '@/components/ui/alert';
 import { toast } from '@/components/ui/toaster';
 import { apiSend, applyFieldErrors } from '@/lib/client/api';
-import { SettingsInput } from '@/lib/validations/settings';
+import { SettingsInput } from '@/lib/settings/schema';
 
 type FormValues = z.input<typeof SettingsInput>;
 type Saved = z.output<typeof SettingsInput>;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { planBoiling } from '@/lib/planning';
+import { planBoiling } from '@/lib/planning/rules';
 import { boilHours } from '@/lib/sugar';
 
 const now = new Date('2027-03-01T12:00:00Z');

@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import { requireContext } from '@/lib/server/context';
-import { getCooperative, listEvaporators, listHouseholdNames, listSeasons } from '@/lib/coop';
+import { getCooperative, listEvaporators, listHouseholdNames, listSeasons } from '@/lib/coop/service';
 import { DateTime } from 'luxon';
 import { clockLabel } from '@/lib/time';
 import { BoilCalendar } from '@/components/calendar/boil-calendar';

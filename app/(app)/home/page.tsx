@@ -1,8 +1,8 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { requireContext } from '@/lib/server/context';
-import { getCooperative, listEvaporators, listSeasons } from '@/lib/coop';
-import { listUpcomingSlots } from '@/lib/slots';
+import { getCooperative, listEvaporators, listSeasons } from '@/lib/coop/service';
+import { listUpcomingSlots } from '@/lib/slots/service';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { buttonVariants } from '@/components/ui/button';
 import { formatSlotRange } from '@/lib/time';

@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import { requireUser } from '@/lib/auth/session';
-import { getCooperative } from '@/lib/coop';
+import { getCooperative } from '@/lib/coop/service';
 import { currentSnapshot } from '@/lib/queue/service';
 import { QueueBoard } from '@/components/queue/queue-board';
 

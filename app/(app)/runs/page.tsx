@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import { requireRole } from '@/lib/auth/session';
-import { getCooperative, listEvaporators, listSeasons } from '@/lib/coop';
+import { getCooperative, listEvaporators, listSeasons } from '@/lib/coop/service';
 import { currentSnapshot } from '@/lib/queue/service';
 import { listRuns } from '@/lib/runs/service';
 import { formatBrix } from '@/lib/sugar';

@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import { requireContext } from '@/lib/server/context';
-import { getSettings } from '@/lib/settings';
+import { getSettings } from '@/lib/settings/service';
 import { SettingsForm } from '@/components/settings/settings-form';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { listDisplayLinks } from '@/lib/display/service';

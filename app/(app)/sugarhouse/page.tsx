@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import { requireContext } from '@/lib/server/context';
-import { getCooperative, listEvaporators } from '@/lib/coop';
+import { getCooperative, listEvaporators } from '@/lib/coop/service';
 import { GRADE_CLASSES, GRADE_CLASS_INFO, formatBrix, formatVolume, standardPressureKPa } from '@/lib/sugar';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { Alert } from '@/components/ui/alert';

@@ -3,8 +3,8 @@ import { badRequest } from '@/lib/server/errors';
 import { fieldErrors, readQuery } from '@/lib/server/http';
 import { route } from '@/lib/server/route';
 import { boilHours, sapToSyrupRatio, sugarKg, syrupLitres, waterToEvaporateL } from '@/lib/sugar';
-import { EstimateQuery } from '@/lib/validations/estimate';
-import { getCooperative, listEvaporators } from '@/lib/coop';
+import { EstimateQuery } from '@/lib/estimate/schema';
+import { getCooperative, listEvaporators } from '@/lib/coop/service';
 
 /** Live preview for the drop-off form: the sugar in a lot and the syrup and boiling it means. */
 export const GET = route(async ({ ctx, req }) => {

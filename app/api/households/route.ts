@@ -1,7 +1,7 @@
 import { json, readJson } from '@/lib/server/http';
 import { route } from '@/lib/server/route';
-import { createHousehold, listHouseholds } from '@/lib/households';
-import { HouseholdInput } from '@/lib/validations/households';
+import { createHousehold, listHouseholds } from '@/lib/households/service';
+import { HouseholdInput } from '@/lib/households/schema';
 
 export const GET = route(async ({ ctx }) => listHouseholds(ctx), { roles: ['coordinator'] });
 

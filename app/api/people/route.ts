@@ -1,7 +1,7 @@
 import { json, readJson } from '@/lib/server/http';
 import { route } from '@/lib/server/route';
-import { addPerson, listStaff } from '@/lib/households';
-import { PersonInput } from '@/lib/validations/households';
+import { addPerson, listStaff } from '@/lib/households/service';
+import { PersonInput } from '@/lib/households/schema';
 
 /** People without a household (staff); household members come with GET /api/households. */
 export const GET = route(async ({ ctx }) => listStaff(ctx), { roles: ['coordinator'] });

@@ -1,4 +1,4 @@
 import { route } from '@/lib/server/route';
-import { getPlanning } from '@/lib/planning-data';
+import { getPlanning } from '@/lib/planning/service';
 
 export const GET = route(async ({ ctx }) => getPlanning(ctx));

@@ -1,7 +1,7 @@
 import { readJson } from '@/lib/server/http';
 import { route } from '@/lib/server/route';
-import { getSettings, updateSettings } from '@/lib/settings';
-import { SettingsInput } from '@/lib/validations/settings';
+import { getSettings, updateSettings } from '@/lib/settings/service';
+import { SettingsInput } from '@/lib/settings/schema';
 
 export const GET = route(async ({ ctx }) => getSettings(ctx), { roles: ['coordinator'] });
 

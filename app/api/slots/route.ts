@@ -1,7 +1,7 @@
 import { json, readJson, readQuery } from '@/lib/server/http';
 import { route } from '@/lib/server/route';
-import { createSlot, listSlots } from '@/lib/slots';
-import { SlotInput, SlotQuery } from '@/lib/validations/slots';
+import { createSlot, listSlots } from '@/lib/slots/service';
+import { SlotInput, SlotQuery } from '@/lib/slots/schema';
 
 export const GET = route(async ({ ctx, req }) => listSlots(ctx, readQuery(req, SlotQuery)));
 

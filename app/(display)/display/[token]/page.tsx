@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
-import { getCooperative } from '@/lib/coop';
+import { getCooperative } from '@/lib/coop/service';
 import { findDisplayLink } from '@/lib/display/tokens';
 import { currentSnapshot } from '@/lib/queue/service';
 import { DisplayBoard } from '@/components/display/display-board';

@@ -1,8 +1,8 @@
 import bcrypt from 'bcryptjs';
 import { readJson } from '@/lib/server/http';
 import { publicRoute } from '@/lib/server/route';
-import { acceptInvitation } from '@/lib/households';
-import { AcceptInvitation } from '@/lib/validations/households';
+import { acceptInvitation } from '@/lib/households/service';
+import { AcceptInvitation } from '@/lib/households/schema';
 
 export const POST = publicRoute(async ({ req }) => {
   const input = await readJson(req, AcceptInvitation);

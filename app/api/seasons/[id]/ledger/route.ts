@@ -5,7 +5,7 @@ import { contextOf, getLedger } from '@/lib/ledger/service';
 import { LedgerFormat } from '@/lib/ledger/schema';
 import { ledgerCsv } from '@/lib/ledger/csv';
 import { ledgerPdf } from '@/lib/ledger/pdf';
-import { getCooperative } from '@/lib/coop';
+import { getCooperative } from '@/lib/coop/service';
 
 /** The Season ledger: JSON (default), `?format=csv` or `?format=pdf`. A member sees its own row. */
 export const GET = route(async (req, { params }: { params: Promise<{ id: string }> }) => {

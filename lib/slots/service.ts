@@ -7,29 +7,17 @@ import { registerConstraints, sqlState } from '@/lib/server/db-errors';
 import { AppError, conflict, invalid, invalidField, notFound } from '@/lib/server/errors';
 import { authorize, can } from '@/lib/server/policies';
 import { withTransaction } from '@/lib/server/tx';
+import { getCooperative } from '@/lib/coop/service';
 import type { Actor } from '@/lib/server/actor';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { slotIcs } from '@/lib/mail/ics';
 import { broadcast } from '@/lib/realtime';
 import { recordChange } from '@/lib/events';
 import { clockLabel, clockMinutes, formatSlotRange, localDay, localMinutes, toZonedIso } from '@/lib/time';
-import type { SlotInput, SlotPatch } from '@/lib/validations/slots';
+import type { SlotInput, SlotPatch } from '@/lib/slots/schema';
 import { appUrl } from '@/lib/env';
-
-export interface SlotDto {
-  id: string;
-  evaporatorId: string;
-  householdId: string;
-  householdName: string;
-  startsAt: string;
-  endsAt: string;
-  status: 'booked' | 'cancelled' | 'done';
-  crew: string[];
-  expectedSapL: number | null;
-  note: string | null;
-  /** True when the signed-in person's household crews it (or they are staff): they may change it. */
-  editable: boolean;
-}
+import type { SlotDto } from './types';
+export type { SlotDto };
 
 registerConstraints({
   boil_slots_no_overlap: { code: 'slot_conflict', field: 'startsAt', message: 'That time was just taken by another booking. Pick another time.', fieldMessage: 'This time is taken.' },
@@ -55,12 +43,6 @@ function toDto(slot: BoilSlot, householdName: string, actor: Actor, zone: string
   };
 }
 
-async function coopOf(ctx: Ctx): Promise<Cooperative> {
-  const coop = await db().Cooperative.findByPk(ctx.cooperativeId, { transaction: ctx.transaction });
-  if (!coop) throw notFound('Your cooperative');
-  return coop;
-}
-
 /** A query boundary: a day is the start of that day in the co-op's zone. */
 function boundary(value: string, zone: string): Date {
   return /^\d{4}-\d{2}-\d{2}$/.test(value) ? DateTime.fromISO(value, { zone }).toJSDate() : new Date(value);
@@ -70,7 +52,7 @@ function boundary(value: string, zone: string): Date {
 export async function listSlots(ctx: Ctx, { from, to }: { from: string; to: string }): Promise<SlotDto[]> {
   authorize(ctx.actor, 'slot.list');
   const { BoilSlot, Household } = db();
-  const coop = await coopOf(ctx);
+  const coop = await getCooperative(ctx);
   const slots = await BoilSlot.findAll({
     transaction: ctx.transaction,
     where: {
@@ -239,7 +221,7 @@ export async function createSlot(ctx: Ctx, input: SlotInput): Promise<SlotDto> {
   authorize(actor, 'slot.create', { householdId: householdId ?? null }, 'Members book slots for their own household only.');
   if (!householdId) throw invalidField('householdId', 'Choose the household that crews this boil.');
   const w = { startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt) };
-  const coop = await coopOf(ctx);
+  const coop = await getCooperative(ctx);
   try {
     const dto = await withTransaction(ctx, async ({ transaction }) => {
       const name = await householdName(householdId!, coop.id, transaction);
@@ -297,7 +279,7 @@ async function loadOwnSlot(ctx: Ctx, id: string, transaction: Transaction) {
 
 /** Moves a slot or changes its crew or note; a move re-checks the rules and e-mails the household. */
 export async function updateSlot(ctx: Ctx, id: string, patch: SlotPatch): Promise<SlotDto> {
-  const coop = await coopOf(ctx);
+  const coop = await getCooperative(ctx);
   let target: { evaporatorId: string; w: Window } | null = null;
   try {
     const dto = await withTransaction(ctx, async ({ transaction, actor }) => {
@@ -335,7 +317,7 @@ export async function updateSlot(ctx: Ctx, id: string, patch: SlotPatch): Promis
 
 /** Cancels a slot (members: their own, and not later than the co-op's notice); frees its time. */
 export async function cancelSlot(ctx: Ctx, id: string): Promise<SlotDto> {
-  const coop = await coopOf(ctx);
+  const coop = await getCooperative(ctx);
   const dto = await withTransaction(ctx, async ({ transaction, actor }) => {
     const slot = await loadOwnSlot(ctx, id, transaction);
     checkNotice(actor, slot, coop, 'cancel');

@@ -4,9 +4,10 @@ import type { Ctx } from '@/lib/server/context';
 import { notFound } from '@/lib/server/errors';
 import { authorize } from '@/lib/server/policies';
 import { withTransaction } from '@/lib/server/tx';
-import type { SettingsInput } from '@/lib/validations/settings';
+import type { SettingsInput } from '@/lib/settings/schema';
+import type { SettingsDto } from './types';
+export type { SettingsDto };
 
-export type SettingsDto = SettingsInput;
 
 const pick = (c: import('@/db/models').Cooperative): SettingsDto => ({
   opensAt: c.opensAt.slice(0, 5),

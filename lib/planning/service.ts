@@ -2,14 +2,11 @@ import 'server-only';
 import { Op, QueryTypes } from 'sequelize';
 import { db } from '@/db/models';
 import type { Ctx } from '@/lib/server/context';
-import { planBoiling, type BoilPlan, type WaitingLot } from '@/lib/planning';
+import { planBoiling, type WaitingLot } from '@/lib/planning/rules';
 import { collectionStart } from '@/lib/deliveries/rules';
 import { spoilageDeadline } from '@/lib/sugar';
-
-export interface PlanningDto extends BoilPlan {
-  evaporatorId: string | null;
-  evaporationLph: number | null;
-}
+import type { PlanningDto } from './types';
+export type { PlanningDto };
 
 /**
  * Accepted sap not yet boiled: the litres of every accepted lot of the open season not yet taken

@@ -11,27 +11,15 @@ import { withTransaction } from '@/lib/server/tx';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { disconnectPerson } from '@/lib/realtime';
 import { welcomeMail } from '@/lib/mail/templates';
-import type { HouseholdInput, PersonInput, RoleChange } from '@/lib/validations/households';
+import type { HouseholdInput, PersonInput, RoleChange } from '@/lib/households/schema';
+import type { PersonDto, HouseholdDto } from './types';
+export type { PersonDto, HouseholdDto };
 
 registerConstraints({
   households_name_per_coop: { code: 'household_name_taken', field: 'name', message: 'There is already a household by that name.', fieldMessage: 'That name is taken.' },
   users_email_unique: { code: 'email_taken', field: 'email', message: 'That e-mail address already has an account.', fieldMessage: 'This e-mail address is already in use.' },
   users_member_has_household: { code: 'household_required', field: 'householdId', message: 'A member belongs to a household: choose one.' },
 });
-
-export interface PersonDto {
-  id: string;
-  name: string;
-  email: string;
-  role: Role;
-  householdId: string | null;
-  invited: boolean;
-}
-export interface HouseholdDto {
-  id: string;
-  name: string;
-  people: PersonDto[];
-}
 
 const INVITE_DAYS = 7;
 

@@ -5,21 +5,8 @@ import type { Ctx } from '@/lib/server/context';
 /** Reads of the co-op's own records need only its id (a display, a worker or a person may ask). */
 type CoopScope = Pick<Ctx, 'cooperativeId' | 'transaction'>;
 import { notFound } from '@/lib/server/errors';
-
-export interface SeasonDto {
-  id: string;
-  label: string;
-  startsOn: string;
-  endsOn: string;
-  status: string;
-  fuelPriceCents: number;
-}
-export interface EvaporatorDto {
-  id: string;
-  name: string;
-  evaporationLph: number;
-  fuelKind: string;
-}
+import type { SeasonDto, EvaporatorDto } from './types';
+export type { SeasonDto, EvaporatorDto };
 
 export async function listSeasons(ctx: CoopScope): Promise<SeasonDto[]> {
   const { Season } = db();
