@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { requireUser } from '@/lib/auth/session';
-import { listSeasons } from '@/lib/coop';
+import { listSeasons } from '@/lib/coop/service';
 import { contextOf, getLedger } from '@/lib/ledger/service';
 import { formatShare, formatSyrup, formatSyrupClasses } from '@/lib/ledger/format';
 import { formatBrix, formatMass, formatMoney, formatVolume, KG_PER_POUND } from '@/lib/sugar';
