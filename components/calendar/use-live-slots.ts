@@ -17,7 +17,8 @@ export function useLiveSlots(onChange: () => void): LiveStatus {
   }, [onChange]);
 
   useEffect(() => {
-    const socket = io({ path: '/realtime' });
+    // WebSocket only: one connection stays on one server process, with no sticky sessions needed.
+    const socket = io({ path: '/realtime', transports: ['websocket'] });
     const changed = () => latest.current();
     const up = () => setStatus('live');
     const down = () => setStatus('offline');
