@@ -1,7 +1,7 @@
 'use client';
 
-import { useMemo, useRef, useState, type ChangeEvent } from 'react';
-import { useForm, type FieldErrors, type Resolver } from 'react-hook-form';
+import { useMemo, useRef, useState, type ChangeEvent, type FormEvent } from 'react';
+import { useForm, useWatch, type FieldErrors, type Resolver } from 'react-hook-form';
 import { useSWRConfig } from 'swr';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
@@ -88,11 +88,11 @@ export function DeliveryForm({ units, timeZone, today, households, shelf, syrupB
     return Object.keys(errors).length ? { values: {}, errors } : { values, errors: {} };
   };
 
-  const { register, handleSubmit, watch, setValue, setError, reset, formState } = useForm<DeliveryFormValues>({
+  const { register, handleSubmit, control, setValue, setError, reset, formState } = useForm<DeliveryFormValues>({
     resolver,
     defaultValues: blank(today),
   });
-  const v = watch();
+  const v = { ...blank(today), ...useWatch({ control }) } as DeliveryFormValues;
   const errors = formState.errors;
 
   // The live preview, from lib/sugar, in the co-op's units.
@@ -164,7 +164,7 @@ export function DeliveryForm({ units, timeZone, today, households, shelf, syrupB
     if (fileInput.current) fileInput.current.value = '';
   }
 
-  const onSubmit = handleSubmit(async (values) => {
+  async function submitLot(values: DeliveryFormValues) {
     if (inFlight.current) return;
     inFlight.current = true;
     setFormError(null);
@@ -201,7 +201,8 @@ export function DeliveryForm({ units, timeZone, today, households, shelf, syrupB
     } finally {
       inFlight.current = false;
     }
-  });
+  }
+  const onSubmit = (e: FormEvent<HTMLFormElement>) => handleSubmit(submitLot)(e);
 
   const vu = volumeUnit(units);
   const tu = tempUnit(units);

@@ -7,6 +7,8 @@ import { formatMass, formatVolume, gallonsToLitres, sugarKg, syrupLitres } from 
 
 // A tablet at the sap tank, in portrait.
 test.use({ viewport: { width: 820, height: 1180 }, hasTouch: true });
+// Whole flows through a busy form; the machine may be shared.
+test.describe.configure({ timeout: 180_000 });
 
 /** A 1×1 PNG, as a tablet camera's file would be an image. */
 const PNG = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8DwHwAFBQIAX8jx0gAAAABJRU5ErkJggg==', 'base64');

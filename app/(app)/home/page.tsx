@@ -10,6 +10,9 @@ import { formatVolume } from '@/lib/sugar';
 import { Alert } from '@/components/ui/alert';
 import { TodayQueueCard } from '@/components/queue/today-queue-card';
 import { TodayLedgerCard } from '@/components/ledger/today-ledger-card';
+import { listDeliveries } from '@/lib/deliveries/service';
+import { localDay } from '@/lib/time';
+import { TodayLots, lotTotals } from '@/components/deliveries/today-lots';
 
 export const metadata: Metadata = { title: 'Today' };
 
@@ -23,6 +26,13 @@ export default async function HomePage() {
     listUpcomingSlots(ctx, { householdId: user.role === 'member' ? user.householdId : null, limit: 5 }),
   ]);
   const open = seasons.find((s) => s.status === 'open');
+  const member = user.role === 'member';
+  const today = localDay(new Date(), coop.timeZone);
+  // A member: its household's lots of the season; staff: today's lots of every household.
+  const lots = await listDeliveries(
+    { actor: user, cooperativeId: user.cooperativeId },
+    member ? (open ? { seasonId: open.id } : {}) : { from: today, to: today },
+  );
   return (
     <div className="flex flex-col gap-6">
       <div>
@@ -77,6 +87,17 @@ export default async function HomePage() {
           settledSeasonId={seasons.find((s) => s.status === 'settled')?.id ?? null}
         />
       )}
+      <TodayLots
+        title={member ? 'Your latest drop-offs' : 'Today’s drop-offs'}
+        lots={member ? lots.slice(0, 5) : lots}
+        units={coop.unitSystem}
+        timeZone={coop.timeZone}
+        showHousehold={!member}
+        empty={member ? 'No sap logged for your household this season yet.' : 'No sap has been logged today yet.'}
+        totalsLabel={member ? (open ? `${open.label} so far` : 'All seasons') : 'Today'}
+        totals={lotTotals(lots)}
+        linkLabel={member ? 'All our drop-offs' : 'Open the Drop-off desk'}
+      />
       <Alert tone="warning" title="Before you crew a boil">
         Boiling sap and syrup burn; never leave a firing evaporator unattended; keep the sugarhouse ventilated against carbon
         monoxide. Follow local fire codes and the co-op’s sugarmakers.
