@@ -1,10 +1,14 @@
 import 'server-only';
 import { DateTime } from 'luxon';
-import { DatabaseError, QueryTypes, UniqueConstraintError, type Transaction } from 'sequelize';
+import { QueryTypes, UniqueConstraintError, type Transaction } from 'sequelize';
 import { db } from '@/db/models';
-import { ApiError } from '@/lib/api/errors';
-import type { SessionUser } from '@/lib/auth/session';
 import { recordChange } from '@/lib/events';
+import { isStaff } from '@/lib/server/actor';
+import { actorUserId, type Ctx, type TxCtx } from '@/lib/server/context';
+import { registerConstraints } from '@/lib/server/db-errors';
+import { invalid, notFound } from '@/lib/server/errors';
+import { authorize, can } from '@/lib/server/policies';
+import { withTransaction } from '@/lib/server/tx';
 import { isCoopKey, photoExists } from '@/lib/storage';
 import { sugarKg, type UnitSystem } from '@/lib/sugar';
 import { localDay, toZonedIso } from '@/lib/time';
@@ -14,22 +18,19 @@ import { LIMITS, type DeliveryInput, type DeliveryPatch, type DeliveryQuery } fr
 import type { DeliveryDetailDto, DeliveryDto, DeliveryRevisionDto } from './types';
 
 /** Who acts, for which co-op, and (optionally) the transaction to work in. */
-export interface DeliveryContext {
-  actor: Pick<SessionUser, 'id' | 'role' | 'householdId' | 'name'>;
-  cooperativeId: string;
-  transaction?: Transaction;
-}
+export type DeliveryContext = Ctx;
 
-const STAFF = new Set(['coordinator', 'sugarmaker']);
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
-function fail(status: number, code: string, message: string, fields?: Record<string, string>): never {
-  throw new ApiError(status, message, fields, { code });
+/** 422 naming the field, with the message on the field. */
+function fail(field: string, message: string, code = 'invalid_input'): never {
+  throw invalid(message, { [field]: message }, code);
 }
+const lotNotFound = () => notFound('That drop-off');
 
-function requireStaff(ctx: DeliveryContext, what: string) {
-  if (!STAFF.has(ctx.actor.role)) fail(403, 'forbidden', `Only a sugarmaker or a coordinator can ${what}.`);
-}
+/** The household a member may see; null for staff (every household); undefined for nobody's. */
+const ownHousehold = (ctx: Ctx): string | null | undefined =>
+  isStaff(ctx.actor) ? null : ctx.actor.kind === 'person' ? (ctx.actor.householdId ?? undefined) : undefined;
 
 interface CoopRow extends ShelfSettings {
   id: string;
@@ -47,7 +48,7 @@ async function coopAndOpenSeason(cooperativeId: string, transaction?: Transactio
       WHERE c.id = :cooperativeId`,
     { replacements: { cooperativeId }, type: QueryTypes.SELECT, transaction },
   );
-  if (!row) fail(404, 'not_found', 'Your cooperative was not found.');
+  if (!row) throw notFound('Your cooperative');
   return row;
 }
 
@@ -64,43 +65,43 @@ const roundL = (v: number) => Math.round(v * 1000) / 1000;
 const roundBrix = (v: number) => Math.round(v * 10) / 10;
 
 function checkCollectedOn(collectedOn: string, receivedDay: string) {
-  if (collectedOn > receivedDay) fail(422, 'invalid_input', 'The sap cannot have been collected after it arrived.', { collectedOn: 'The collection day cannot be after the day the lot arrived.' });
+  if (collectedOn > receivedDay) fail('collectedOn', 'The collection day cannot be after the day the lot arrived.');
   const oldest = DateTime.fromISO(receivedDay).minus({ days: LIMITS.maxCollectedDaysAgo }).toISODate()!;
-  if (collectedOn < oldest) fail(422, 'invalid_input', 'That collection day is too long ago.', { collectedOn: `Sap collected more than ${LIMITS.maxCollectedDaysAgo} days before it arrived cannot be logged.` });
+  if (collectedOn < oldest) fail('collectedOn', `Sap collected more than ${LIMITS.maxCollectedDaysAgo} days before it arrived cannot be logged.`);
 }
 
 async function checkPhotoKey(cooperativeId: string, key: string | null | undefined) {
   if (!key) return;
-  if (!isCoopKey(cooperativeId, key) || !(await photoExists(key))) {
-    fail(422, 'invalid_input', 'That photo was not found; take or choose it again.', { photoKey: 'That photo was not found; take or choose it again.' });
-  }
+  if (!isCoopKey(cooperativeId, key) || !(await photoExists(key))) fail('photoKey', 'That photo was not found; take or choose it again.', 'photo_not_found');
 }
 
-/** Database refusals a person can act on, as field errors; anything else is rethrown. */
-function mapConstraint(err: unknown): never {
-  const constraint = (err as { parent?: { constraint?: string } })?.parent?.constraint ?? (err as { original?: { constraint?: string } })?.original?.constraint;
-  if (constraint === 'sap_deliveries_not_overdrawn') {
-    fail(409, 'lot_already_boiled', 'Part of this lot has already been boiled: its volume cannot go below the litres taken into runs.', { volumeL: 'Less than what has already been boiled.' });
-  }
-  if (constraint === 'sap_deliveries_boiled_only_accepted') {
-    fail(409, 'lot_already_boiled', 'Part of this lot has already been boiled, so it can no longer be rejected.', { status: 'Part of this lot has already been boiled.' });
-  }
-  const fields: Record<string, [string, string]> = {
-    sap_deliveries_volume: ['volumeL', 'The volume must be more than zero.'],
-    sap_deliveries_brix: ['brix', `°Brix is between 0 and ${LIMITS.maxBrix}.`],
-    sap_deliveries_sap_temp: ['sapTempC', 'That sap temperature is out of range.'],
-    sap_deliveries_collected_before_received: ['collectedOn', 'The collection day cannot be after the day the lot arrived.'],
-    sap_deliveries_mix: ['mix', 'The sugarbush mix must add up to 100 %.'],
-    sap_deliveries_rejected_has_reason: ['reason', 'A rejected lot needs a reason.'],
-    sap_deliveries_override_has_reason: ['reason', 'Going against the recommendation needs a reason.'],
-    sap_deliveries_household_fk: ['householdId', 'Choose a household of this cooperative.'],
-  };
-  if (constraint && fields[constraint]) {
-    const [field, message] = fields[constraint];
-    fail(422, 'invalid_input', message, { [field]: message });
-  }
-  throw err;
-}
+// The database's refusals, as a person reads them (the service checks first; these are the backstop).
+registerConstraints({
+  sap_deliveries_volume: { code: 'invalid_input', field: 'volumeL', message: 'The volume must be more than zero.' },
+  sap_deliveries_brix: { code: 'invalid_input', field: 'brix', message: `°Brix is between 0 and ${LIMITS.maxBrix}.` },
+  sap_deliveries_sap_temp: { code: 'invalid_input', field: 'sapTempC', message: 'That sap temperature is out of range.' },
+  sap_deliveries_collected_before_received: { code: 'invalid_input', field: 'collectedOn', message: 'The collection day cannot be after the day the lot arrived.' },
+  sap_deliveries_mix: { code: 'invalid_input', field: 'mix', message: 'The sugarbush mix must add up to 100 %.' },
+  sap_deliveries_rejected_has_reason: { code: 'reason_required', field: 'reason', message: 'A rejected lot needs a reason.' },
+  sap_deliveries_override_has_reason: { code: 'reason_required', field: 'reason', message: 'Going against the recommendation needs a reason.' },
+  sap_deliveries_household_fk: { code: 'invalid_input', field: 'householdId', message: 'Choose a household of this cooperative.' },
+  sap_deliveries_season_fk: { code: 'no_open_season', message: 'There is no open season to log sap into.' },
+  // Runs take litres from lots (lib/runs): a correction may not undercut them.
+  sap_deliveries_not_overdrawn: {
+    code: 'lot_already_boiled',
+    kind: 'conflict',
+    field: 'volumeL',
+    message: 'Part of this lot has already been boiled: its volume cannot go below the litres taken into runs.',
+    fieldMessage: 'Less than what has already been boiled.',
+  },
+  sap_deliveries_boiled_only_accepted: {
+    code: 'lot_already_boiled',
+    kind: 'conflict',
+    field: 'status',
+    message: 'Part of this lot has already been boiled, so it can no longer be rejected.',
+    fieldMessage: 'Part of this lot has already been boiled.',
+  },
+});
 
 // ---------------------------------------------------------------------------------------------
 // Reading
@@ -142,9 +143,9 @@ function toDto<R extends LotRow>(r: R): Omit<R, 'sugarMaplePct' | 'redMaplePct' 
  * the co-op's calendar days, inclusive.
  */
 export async function listDeliveries(ctx: DeliveryContext, query: DeliveryQuery): Promise<DeliveryDto[]> {
-  const member = !STAFF.has(ctx.actor.role);
-  if (member && !ctx.actor.householdId) return [];
-  const householdId = member ? ctx.actor.householdId : query.householdId;
+  const own = ownHousehold(ctx);
+  if (own === undefined) return [];
+  const householdId = own ?? query.householdId;
   const where = ['d.cooperative_id = :cooperativeId'];
   if (householdId) where.push('d.household_id = :householdId');
   if (query.status) where.push('d.status = :status');
@@ -167,7 +168,7 @@ export async function listDeliveries(ctx: DeliveryContext, query: DeliveryQuery)
 
 /** `GET /api/deliveries/:id`: the lot with its revisions and deadline; another household's lot is 404 to a member. */
 export async function getDelivery(ctx: DeliveryContext, id: string): Promise<DeliveryDetailDto> {
-  if (!UUID.test(id)) fail(404, 'not_found', 'That drop-off was not found.');
+  if (!UUID.test(id)) throw lotNotFound();
   const [row] = await db().sequelize.query<
     LotRow & { revisions: DeliveryRevisionDto[] | null; timeZone: string; shelfDays: number; warmAboveC: number; warmShelfDays: number }
   >(
@@ -179,7 +180,8 @@ export async function getDelivery(ctx: DeliveryContext, id: string): Promise<Del
       WHERE d.id = :id AND d.cooperative_id = :cooperativeId`,
     { replacements: { id, cooperativeId: ctx.cooperativeId }, type: QueryTypes.SELECT, transaction: ctx.transaction },
   );
-  if (!row || (!STAFF.has(ctx.actor.role) && row.householdId !== ctx.actor.householdId)) fail(404, 'not_found', 'That drop-off was not found.');
+  // Another household's lot is not there for a member (404, not 403: its existence is not theirs to know).
+  if (!row || !can(ctx.actor, 'delivery.read', { householdId: row.householdId })) throw lotNotFound();
   const { timeZone, shelfDays, warmAboveC, warmShelfDays, revisions, ...lot } = row;
   const rec = recommend(
     { clarity: lot.clarity, contamination: lot.contamination, sapTempC: lot.sapTempC, collectedAt: collectionStart(lot.collectedOn, timeZone), receivedAt: new Date(lot.receivedAt) },
@@ -208,18 +210,18 @@ async function findByKey(cooperativeId: string, key: string): Promise<string | n
  * `created: false`.
  */
 export async function createDelivery(ctx: DeliveryContext, input: DeliveryInput, now = new Date()): Promise<{ lot: DeliveryDto; created: boolean }> {
-  requireStaff(ctx, 'log a drop-off');
+  authorize(ctx.actor, 'delivery.create', undefined, 'Only a sugarmaker or a coordinator can log a drop-off.');
   const existing = await findByKey(ctx.cooperativeId, input.idempotencyKey);
   if (existing) return { lot: await lotForAnswer(ctx, existing), created: false };
   try {
-    const lot = await db().sequelize.transaction((transaction) => insertLot({ ...ctx, transaction }, input, now));
+    // Safe to retry on a lost connection: a second try of a committed insert meets the key.
+    const lot = await withTransaction(ctx, (tx) => insertLot(tx, input, now), { idempotent: true });
     return { lot, created: true };
   } catch (err) {
     if (isIdempotencyClash(err)) {
       const id = await findByKey(ctx.cooperativeId, input.idempotencyKey);
       if (id) return { lot: await lotForAnswer(ctx, id), created: false };
     }
-    if (err instanceof DatabaseError) mapConstraint(err);
     throw err;
   }
 }
@@ -229,12 +231,12 @@ async function lotForAnswer(ctx: DeliveryContext, id: string): Promise<DeliveryD
   return { ...lot, revisions: revisions.length };
 }
 
-async function insertLot(ctx: DeliveryContext & { transaction: Transaction }, input: DeliveryInput, now: Date): Promise<DeliveryDto> {
+async function insertLot(ctx: TxCtx, input: DeliveryInput, now: Date): Promise<DeliveryDto> {
   const { transaction, cooperativeId } = ctx;
   const coop = await coopAndOpenSeason(cooperativeId, transaction);
-  if (!coop.seasonId) fail(422, 'no_open_season', 'There is no open season to log sap into. A coordinator opens one in Settings.');
+  if (!coop.seasonId) throw invalid('There is no open season to log sap into. A coordinator opens one in Settings.', undefined, 'no_open_season');
   const name = UUID.test(input.householdId) ? await householdName(cooperativeId, input.householdId, transaction) : null;
-  if (!name) fail(422, 'invalid_input', 'Choose a household of this cooperative.', { householdId: 'Choose a household of this cooperative.' });
+  if (!name) fail('householdId', 'Choose a household of this cooperative.', 'unknown_household');
   checkCollectedOn(input.collectedOn, localDay(now, coop.timeZone));
   await checkPhotoKey(cooperativeId, input.photoKey);
 
@@ -245,7 +247,7 @@ async function insertLot(ctx: DeliveryContext & { transaction: Transaction }, in
   const decided = decide(rec, input.decision, input.reason);
   if ('needsReason' in decided) {
     const message = input.decision === 'reject' || (!input.decision && rec.decision === 'reject') ? 'Say why the lot is rejected.' : 'Say why you go against the recommendation.';
-    fail(422, 'reason_required', message, { reason: message });
+    fail('reason', message, 'reason_required');
   }
 
   const { SapDelivery } = db();
@@ -269,7 +271,7 @@ async function insertLot(ctx: DeliveryContext & { transaction: Transaction }, in
       reason: decided.reason,
       photoKey: input.photoKey ?? null,
       note: input.note?.trim() || null,
-      loggedBy: ctx.actor.id,
+      loggedBy: actorUserId(ctx),
       idempotencyKey: input.idempotencyKey,
     },
     { transaction },
@@ -298,7 +300,7 @@ async function insertLot(ctx: DeliveryContext & { transaction: Transaction }, in
     photoKey: row.photoKey,
     note: row.note,
     loggedBy: row.loggedBy,
-    loggedByName: ctx.actor.name ?? null,
+    loggedByName: ctx.actor.kind === 'person' ? ctx.actor.name : null,
     litresBoiled: 0,
     revisions: 0,
   };
@@ -331,30 +333,23 @@ type Snapshot = {
  * °Brix changes the lot's sugar everywhere, since sugar is always computed from them.
  */
 export async function correctDelivery(ctx: DeliveryContext, id: string, patch: DeliveryPatch): Promise<DeliveryDetailDto> {
-  requireStaff(ctx, 'correct a drop-off');
-  if (!UUID.test(id)) fail(404, 'not_found', 'That drop-off was not found.');
-  try {
-    await db().sequelize.transaction((transaction) => applyCorrection({ ...ctx, transaction }, id, patch));
-  } catch (err) {
-    if (err instanceof DatabaseError) mapConstraint(err);
-    throw err;
-  }
+  authorize(ctx.actor, 'delivery.update', undefined, 'Only a sugarmaker or a coordinator can correct a drop-off.');
+  if (!UUID.test(id)) throw lotNotFound();
+  await withTransaction(ctx, (tx) => applyCorrection(tx, id, patch));
   return getDelivery({ ...ctx, transaction: undefined }, id);
 }
 
-async function applyCorrection(ctx: DeliveryContext & { transaction: Transaction }, id: string, patch: DeliveryPatch) {
+async function applyCorrection(ctx: TxCtx, id: string, patch: DeliveryPatch) {
   const { transaction, cooperativeId } = ctx;
   const { SapDelivery, DeliveryRevision } = db();
   const lot = await SapDelivery.findOne({ where: { id, cooperativeId }, transaction, lock: transaction.LOCK.UPDATE });
-  if (!lot) fail(404, 'not_found', 'That drop-off was not found.');
+  if (!lot) throw lotNotFound();
   const coop = await coopAndOpenSeason(cooperativeId, transaction);
 
   const before: Snapshot = snapshot(lot);
   const next: Snapshot = { ...before };
   if (patch.householdId !== undefined && patch.householdId !== lot.householdId) {
-    if (!(await householdName(cooperativeId, patch.householdId, transaction))) {
-      fail(422, 'invalid_input', 'Choose a household of this cooperative.', { householdId: 'Choose a household of this cooperative.' });
-    }
+    if (!(await householdName(cooperativeId, patch.householdId, transaction))) fail('householdId', 'Choose a household of this cooperative.', 'unknown_household');
     next.householdId = patch.householdId;
   }
   if (patch.volumeL !== undefined) next.volumeL = roundL(patch.volumeL);
@@ -393,7 +388,7 @@ async function applyCorrection(ctx: DeliveryContext & { transaction: Transaction
   next.reason = reason;
 
   const changed = (Object.keys(next) as (keyof Snapshot)[]).filter((k) => JSON.stringify(next[k]) !== JSON.stringify(before[k]));
-  if (!changed.length) fail(422, 'nothing_changed', 'Nothing to correct: every field is as it was.');
+  if (!changed.length) throw invalid('Nothing to correct: every field is as it was.', undefined, 'nothing_changed');
 
   await lot.update(
     {
@@ -419,7 +414,7 @@ async function applyCorrection(ctx: DeliveryContext & { transaction: Transaction
     {
       cooperativeId,
       deliveryId: lot.id,
-      changedBy: ctx.actor.id,
+      changedBy: actorUserId(ctx),
       reason: patch.reason.trim(),
       before: Object.fromEntries(changed.map((k) => [k, before[k]])),
       after: Object.fromEntries(changed.map((k) => [k, next[k]])),

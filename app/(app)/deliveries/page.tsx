@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import { requireUser } from '@/lib/auth/session';
+import { requireContext } from '@/lib/server/context';
 import { getCooperative, listEvaporators, listHouseholdNames, listSeasons } from '@/lib/coop';
 import { listDeliveries } from '@/lib/deliveries/service';
 import { localDay } from '@/lib/time';
@@ -9,18 +9,13 @@ import { DeliveriesTable } from '@/components/deliveries/deliveries-table';
 export const metadata: Metadata = { title: 'Drop-offs' };
 
 export default async function DeliveriesPage() {
-  const user = await requireUser({ onFail: 'redirect' });
-  const cooperativeId = user.cooperativeId;
+  const ctx = await requireContext({ onFail: 'redirect' });
+  const user = ctx.actor;
   const staff = user.role === 'coordinator' || user.role === 'sugarmaker';
-  const [coop, seasons, evaporators, households] = await Promise.all([
-    getCooperative({ cooperativeId }),
-    listSeasons({ cooperativeId }),
-    listEvaporators({ cooperativeId }),
-    listHouseholdNames({ cooperativeId }),
-  ]);
+  const [coop, seasons, evaporators, households] = await Promise.all([getCooperative(ctx), listSeasons(ctx), listEvaporators(ctx), listHouseholdNames(ctx)]);
   const open = seasons.find((s) => s.status === 'open') ?? null;
   const season = open ?? seasons[0] ?? null;
-  const initial = await listDeliveries({ actor: user, cooperativeId }, season ? { seasonId: season.id } : {});
+  const initial = await listDeliveries(ctx, season ? { seasonId: season.id } : {});
   const own = households.find((h) => h.id === user.householdId);
   const units = coop.unitSystem;
 

@@ -30,7 +30,7 @@ export default async function HomePage() {
   const today = localDay(new Date(), coop.timeZone);
   // A member: its household's lots of the season; staff: today's lots of every household.
   const lots = await listDeliveries(
-    { actor: user, cooperativeId: user.cooperativeId },
+    ctx,
     member ? (open ? { seasonId: open.id } : {}) : { from: today, to: today },
   );
   return (
