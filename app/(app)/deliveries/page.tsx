@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import { requireContext } from '@/lib/server/context';
-import { getCooperative, listEvaporators, listHouseholdNames, listSeasons } from '@/lib/coop';
+import { getCooperative, listEvaporators, listHouseholdNames, listSeasons } from '@/lib/coop/service';
 import { listDeliveries } from '@/lib/deliveries/service';
 import { localDay } from '@/lib/time';
 import { DeliveryForm } from '@/components/deliveries/delivery-form';
