@@ -85,7 +85,7 @@ export default async function LedgerPage({ searchParams }: { searchParams: Promi
                 <TD numeric>{formatMass(h.sugarKg, u)}</TD>
                 <TD numeric>{formatShare(h.share)}</TD>
                 <TD numeric>{formatSyrup(h.syrupMl, u)}</TD>
-                <TD>{formatSyrupClasses(h.syrupByClassMl, u)}</TD>
+                <TD className="min-w-56">{formatSyrupClasses(h.syrupByClassMl, u)}</TD>
                 <TD numeric>{money(h.fuelCents)}</TD>
                 <TD numeric>{money(h.feeCents)}</TD>
                 <TD numeric>{money(h.dueCents)}</TD>
