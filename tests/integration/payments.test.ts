@@ -16,6 +16,7 @@ let coordinator: Client;
 let ids: Record<'ash' | 'birch' | 'cedar', string>;
 
 function completedEvent(settlementId: string, amount: number, currency = 'usd', eventId = `evt_test_${randomUUID()}`) {
+  posted.push(eventId);
   return JSON.stringify({
     id: eventId,
     object: 'event',
@@ -33,9 +34,11 @@ const post = (payload: string, secret = SECRET) =>
     body: payload,
   });
 
+// Only this co-op's payments and the events these tests post: other tests' webhooks may land meanwhile.
+const posted: string[] = [];
 const counts = async () => {
   const [p] = await rows<{ n: string }>(`SELECT count(*) AS n FROM payments WHERE cooperative_id = :c`, { c: ex.cooperativeId });
-  const [e] = await rows<{ n: string }>(`SELECT count(*) AS n FROM payment_events`);
+  const [e] = posted.length ? await rows<{ n: string }>(`SELECT count(*) AS n FROM payment_events WHERE event_id IN (:ids)`, { ids: posted }) : [{ n: '0' }];
   return { payments: Number(p.n), events: Number(e.n) };
 };
 
