@@ -6,6 +6,24 @@ const nextConfig = {
   serverExternalPackages: ['sequelize', 'pg', 'pg-hstore', 'pg-boss', 'nodemailer', 'socket.io', '@aws-sdk/client-s3', 'pdfkit', 'stripe'],
   poweredByHeader: false,
   reactStrictMode: true,
+  experimental: {
+    // proxy.ts sees request bodies up to this size (an upload of 10 MB and its multipart
+    // overhead); it refuses larger ones by their Content-Length with 413.
+    proxyClientMaxBodySize: '11mb',
+  },
+  // Static files are outside proxy.ts; they get the headers that do not need a nonce.
+  async headers() {
+    return [
+      {
+        source: '/:path*',
+        headers: [
+          { key: 'X-Content-Type-Options', value: 'nosniff' },
+          { key: 'Referrer-Policy', value: 'same-origin' },
+          { key: 'X-Frame-Options', value: 'DENY' },
+        ],
+      },
+    ];
+  },
 };
 
 export default nextConfig;

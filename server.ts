@@ -13,6 +13,8 @@ import { getSequelize } from '@/db';
 import { displayRoom, findDisplayLink } from '@/lib/display/tokens';
 import { sendCurrentQueue, startQueueBroadcaster } from '@/lib/queue/live';
 import { createAdapterPool } from '@/lib/server/adapter-pool';
+import { ownOrigins } from '@/lib/security/requests';
+import { CLIENT_IP_HEADER } from '@/lib/security/client-ip';
 
 async function main() {
   const e = env();
@@ -23,6 +25,8 @@ async function main() {
   await app.prepare();
 
   const server = createServer((req, res) => {
+    // The peer's address, for the sign-in limits; a value sent by the client is never trusted.
+    req.headers[CLIENT_IP_HEADER] = req.socket.remoteAddress ?? 'unknown';
     handle(req, res).catch((err) => {
       console.error(err);
       res.statusCode = 500;
@@ -32,7 +36,18 @@ async function main() {
 
   // socket.io on its own path. A socket passes the same check as a request: next-auth's token
   // reader, then the person as the database has them now (exists, session version current).
-  const io = new Server(server, { path: '/realtime', serveClient: false });
+  const io = new Server(server, {
+    path: '/realtime',
+    serveClient: false,
+    // A page of another site may not open a socket with this site's cookie.
+    allowRequest: (req, callback) => {
+      const origin = req.headers.origin;
+      if (!origin) return callback(null, true);
+      const headers = new Headers();
+      for (const [k, v] of Object.entries(req.headers)) if (typeof v === 'string') headers.set(k, v);
+      callback(null, ownOrigins(headers, 'http:', [e.APP_URL, process.env.NEXTAUTH_URL]).includes(origin));
+    },
+  });
   // Events reach the sockets of every server process that shares the database.
   // Its listening connection comes back after a database restart (see createAdapterPool).
   const adapterPool = createAdapterPool(e.DATABASE_URL);

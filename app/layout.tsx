@@ -1,5 +1,6 @@
 import type { Metadata, Viewport } from 'next';
 import type { ReactNode } from 'react';
+import { connection } from 'next/server';
 import { Toaster } from '@/components/ui/toaster';
 import { brandFont } from './fonts';
 import './globals.css';
@@ -20,7 +21,10 @@ export const viewport: Viewport = {
   colorScheme: 'light',
 };
 
-export default function RootLayout({ children }: Readonly<{ children: ReactNode }>) {
+export default async function RootLayout({ children }: Readonly<{ children: ReactNode }>) {
+  // Every page renders per request, so that Next.js can put this request's CSP nonce
+  // (set by proxy.ts) on its scripts.
+  await connection();
   return (
     <html lang="en" className={brandFont.variable}>
       <body className="min-h-dvh bg-birch font-sans text-slate antialiased">

@@ -17,3 +17,5 @@ export NEXT_DIST_DIR=.next-test
 payment_env "${TEST_PAY_PORT:-9500}"
 # The health check says "test": the integration set-up reuses only a server that says so.
 export BRIXHOUSE_TEST_SERVER=1
+# Sign-in limits count failures over a short window here, so the tests can wait one out.
+export SIGN_IN_WINDOW_SECONDS=${SIGN_IN_WINDOW_SECONDS:-30}

@@ -9,6 +9,7 @@ import * as runs from './20261202-0020-runs';
 import * as ledger from './20261202-0030-ledger';
 import * as slotRevision from './20261202-0002-slot-revision';
 import * as runNumbers from './20261202-0040-run-numbers';
+import * as accountSecurity from './20261202-0003-account-security';
 
 interface MigrationModule {
   up: MigrationFn<QueryInterface>;
@@ -21,6 +22,7 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '20261201-0002-boil-slots', module: boilSlots },
   { name: '20261201-0003-realtime', module: realtime },
   { name: '20261202-0001-session-version', module: sessionVersion },
+  { name: '20261202-0003-account-security', module: accountSecurity },
   { name: '20261202-0010-deliveries', module: deliveries },
   { name: '20261202-0020-runs', module: runs },
   { name: '20261202-0030-ledger', module: ledger },

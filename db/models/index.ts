@@ -13,12 +13,13 @@ import { RunInput } from './run-input';
 import { SyrupDraw } from './syrup-draw';
 import { FuelUse } from './fuel-use';
 import { DisplayLink } from './display-link';
+import { PasswordReset } from './password-reset';
 
-export { Cooperative, Household, User, Season, Evaporator, BoilSlot, SapDelivery, DeliveryRevision, BoilRun, RunInput, SyrupDraw, FuelUse, DisplayLink };
+export { Cooperative, Household, User, Season, Evaporator, BoilSlot, SapDelivery, DeliveryRevision, BoilRun, RunInput, SyrupDraw, FuelUse, DisplayLink, PasswordReset };
 export type { Role } from './user';
 export { ROLES } from './user';
 
-const models = { Cooperative, Household, User, Season, Evaporator, BoilSlot, SapDelivery, DeliveryRevision, BoilRun, RunInput, SyrupDraw, FuelUse, DisplayLink };
+const models = { Cooperative, Household, User, Season, Evaporator, BoilSlot, SapDelivery, DeliveryRevision, BoilRun, RunInput, SyrupDraw, FuelUse, DisplayLink, PasswordReset };
 export type Models = typeof models;
 
 // Per module instance: Next bundles its own copy of these classes beside the custom server's.

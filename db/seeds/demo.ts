@@ -33,7 +33,7 @@ export const DEMO_SIGN_INS = [
   ...DEMO_HOUSEHOLDS.map((h) => ({ email: h.email, role: 'member' as const })),
 ];
 
-const TABLES = ['payment_events', 'payments', 'settlements', 'allocation_revisions', 'allocations', 'season_fees', 'display_links', 'fuel_uses', 'syrup_draws', 'run_inputs', 'boil_runs', 'delivery_revisions', 'sap_deliveries', 'boil_slots', 'users', 'evaporators', 'seasons', 'households', 'cooperatives'];
+const TABLES = ['password_resets', 'rate_limits', 'payment_events', 'payments', 'settlements', 'allocation_revisions', 'allocations', 'season_fees', 'display_links', 'fuel_uses', 'syrup_draws', 'run_inputs', 'boil_runs', 'delivery_revisions', 'sap_deliveries', 'boil_slots', 'users', 'evaporators', 'seasons', 'households', 'cooperatives'];
 
 /**
  * Removes every row of the domain tables (tests start each suite from the demo data). Refuses a

@@ -5,10 +5,13 @@ import { z } from 'zod';
 import { db } from '@/db/models';
 import type { Role } from '@/db/models';
 import { env } from '@/lib/env';
+import { safeRedirectUrl } from '@/lib/security/redirect';
+import { PASSWORD_MAX_BYTES, passwordBytes } from '@/lib/account/schema';
 
 const Credentials = z.object({
   email: z.string().trim().toLowerCase().email(),
-  password: z.string().min(1).max(200),
+  // Longer than bcrypt reads: no password set through Brixhouse is, so it cannot match.
+  password: z.string().min(1).refine((p) => passwordBytes(p) <= PASSWORD_MAX_BYTES),
 });
 
 // Compared against when no user matches, so a wrong e-mail costs as long as a wrong password.
@@ -40,6 +43,10 @@ export const authOptions: NextAuthOptions = {
   // The token names the person and the generation of their sessions, nothing more: role,
   // household and cooperative are read from the database on every request (lib/server/context).
   callbacks: {
+    // Only addresses on this site: `/\evil.example` and friends end on the home page.
+    async redirect({ url, baseUrl }) {
+      return safeRedirectUrl(url, baseUrl);
+    },
     async jwt({ token, user }) {
       if (user) {
         token.uid = user.id;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { NewPassword } from '@/lib/account/schema';
 import { ROLES } from '@/lib/roles';
 import { line } from '@/lib/validation/fields';
 
@@ -31,5 +32,5 @@ export type RoleChange = z.infer<typeof RoleChange>;
 
 export const AcceptInvitation = z.object({
   token: z.string().min(20, 'This invitation link is incomplete.'),
-  password: z.string().min(10, 'Use at least 10 characters.').max(200, 'Keep it under 200 characters.'),
+  password: NewPassword,
 });

@@ -159,13 +159,23 @@ export function sha256(s: string) {
   return crypto.createHash('sha256').update(s).digest('hex');
 }
 
+const invitationGone = () =>
+  new AppError('not_found', 'invitation_not_found', 'This invitation link has expired or was already used. Ask your coordinator for a new one.');
+
+/** Throws 404 unless the invitation link is still good. */
+export async function findUsableInvitation(token: string): Promise<void> {
+  const { User } = db();
+  const user = await User.findOne({ where: { inviteTokenHash: sha256(token), inviteExpiresAt: { [Op.gt]: new Date() } } });
+  if (!user) throw invitationGone();
+}
+
 /** Sets the password of an invited person from their one-time link. */
 export async function acceptInvitation({ token, passwordHash }: { token: string; passwordHash: string }) {
   const { User } = db();
   return withTransaction(async (transaction) => {
     const user = await User.findOne({ where: { inviteTokenHash: sha256(token) }, transaction, lock: transaction.LOCK.UPDATE });
     if (!user || !user.inviteExpiresAt || user.inviteExpiresAt < new Date()) {
-      throw new AppError('not_found', 'invitation_not_found', 'This invitation link has expired or was already used. Ask your coordinator for a new one.');
+      throw invitationGone();
     }
     await user.update({ passwordHash, inviteTokenHash: null, inviteExpiresAt: null }, { transaction });
     return { email: user.email };

@@ -2,6 +2,7 @@ import { NextResponse } from 'next/server';
 import { ZodError, type ZodType, type z } from 'zod';
 import { AppError, badRequest, type ErrorKind, type FieldErrors } from './errors';
 import { fromDatabaseError } from './db-errors';
+import { BodyTooLargeError, JSON_BODY_LIMIT, readBodyLimited } from '@/lib/security/limits';
 
 /** The one status for each kind of domain error. */
 export const STATUS: Record<ErrorKind, number> = {
@@ -49,9 +50,13 @@ export function toAppError(err: unknown, ctx: MapContext = {}): AppError | null 
 
 /** The API's one error body: `{ error: { code, message, fields?, ...details } }`. */
 export function appErrorResponse(e: AppError, init?: ResponseInit): Response {
+  const headers = new Headers(init?.headers);
+  // A limit that lifts at a known time says when (sign-in limits).
+  const retry = e.details?.retryAfterSeconds;
+  if (e.kind === 'rate_limited' && typeof retry === 'number') headers.set('Retry-After', String(retry));
   return NextResponse.json(
     { error: { code: e.code, message: e.message, ...(e.fields ? { fields: e.fields } : {}), ...(e.details ?? {}) } },
-    { ...init, status: STATUS[e.kind] },
+    { ...init, headers, status: STATUS[e.kind] },
   );
 }
 
@@ -69,13 +74,23 @@ export function errorResponse(err: unknown, ctx: MapContext = {}): Response {
 /** A JSON answer. */
 export const json = (data: unknown, status = 200) => NextResponse.json(data, { status });
 
-/** Reads a JSON body (400 `invalid_json` when it is not JSON) and, given a schema, parses it (422). */
+/**
+ * Reads a JSON body (400 `invalid_json` when it is not JSON) and, given a schema, parses it (422).
+ * A body past the JSON limit answers 413, also when it arrives in chunks with no Content-Length.
+ */
 export async function readJson(req: Request): Promise<unknown>;
 export async function readJson<S extends ZodType>(req: Request, schema: S): Promise<z.output<S>>;
 export async function readJson(req: Request, schema?: ZodType): Promise<unknown> {
+  let bytes: Uint8Array;
+  try {
+    bytes = await readBodyLimited(req, JSON_BODY_LIMIT);
+  } catch (err) {
+    if (err instanceof BodyTooLargeError) throw new AppError('too_large', 'body_too_large', err.message);
+    throw badRequest('The request body could not be read.', 'unreadable_body');
+  }
   let body: unknown;
   try {
-    body = await req.json();
+    body = JSON.parse(new TextDecoder().decode(bytes));
   } catch {
     throw badRequest('The request body must be JSON.', 'invalid_json');
   }

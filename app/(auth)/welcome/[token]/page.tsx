@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import { WelcomeForm } from '@/components/auth/welcome-form';
+import { NewPasswordForm } from '@/components/auth/new-password-form';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 
 export const metadata: Metadata = { title: 'Welcome' };
@@ -13,7 +13,7 @@ export default async function WelcomePage({ params }: { params: Promise<{ token:
       </CardHeader>
       <CardBody className="flex flex-col gap-4">
         <p>Choose a password; then sign in with the e-mail address this invitation came to.</p>
-        <WelcomeForm token={token} />
+        <NewPasswordForm token={token} endpoint="/api/invitations/accept" doneHref="/sign-in?welcome=1" />
       </CardBody>
     </Card>
   );

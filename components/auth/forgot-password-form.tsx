@@ -1,57 +1,51 @@
 'use client';
 
-import { useRouter } from 'next/navigation';
 import { useState, type FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Field, Input, fieldA11y } from '@/components/ui/input';
 import { ApiClientError, apiSend } from '@/lib/client/api';
 
-interface WelcomeFormProps {
-  token: string;
-}
-
-export function WelcomeForm({ token }: WelcomeFormProps) {
-  const router = useRouter();
+export function ForgotPasswordForm() {
+  const [sent, setSent] = useState<string | null>(null);
   const [error, setError] = useState<string | null>(null);
   const [fieldError, setFieldError] = useState<string | undefined>();
   const [busy, setBusy] = useState(false);
 
   async function onSubmit(e: FormEvent<HTMLFormElement>) {
     e.preventDefault();
-    const form = new FormData(e.currentTarget);
-    const password = String(form.get('password') ?? '');
-    if (password !== String(form.get('confirm') ?? '')) {
-      setFieldError('The two passwords differ.');
-      return;
-    }
+    const email = String(new FormData(e.currentTarget).get('email') ?? '');
     setBusy(true);
     setError(null);
     setFieldError(undefined);
     try {
-      await apiSend('POST', '/api/invitations/accept', { token, password });
-      router.replace('/sign-in?welcome=1');
+      const res = await apiSend<{ message: string }>('POST', '/api/password-resets', { email });
+      setSent(res.message);
     } catch (err) {
       if (err instanceof ApiClientError) {
-        setFieldError(err.fields.password);
-        if (!err.fields.password) setError(err.message);
+        setFieldError(err.fields.email);
+        if (!err.fields.email) setError(err.message);
       } else setError('Could not reach Brixhouse. Try again in a moment.');
     } finally {
       setBusy(false);
     }
   }
 
+  if (sent) {
+    return (
+      <Alert tone="info" title="Check your inbox">
+        {sent}
+      </Alert>
+    );
+  }
   return (
     <form onSubmit={onSubmit} className="flex flex-col gap-4" noValidate>
       {error ? <Alert tone="danger">{error}</Alert> : null}
-      <Field label="New password" htmlFor="password" hint="At least 10 characters." error={fieldError}>
-        <Input {...fieldA11y('password', fieldError, true)} name="password" type="password" autoComplete="new-password" />
-      </Field>
-      <Field label="The same password again" htmlFor="confirm">
-        <Input id="confirm" name="confirm" type="password" autoComplete="new-password" />
+      <Field label="E-mail" htmlFor="email" error={fieldError}>
+        <Input {...fieldA11y('email', fieldError)} name="email" type="email" autoComplete="username" required />
       </Field>
       <Button type="submit" size="lg" loading={busy}>
-        Save password
+        Send the link
       </Button>
     </form>
   );

@@ -1,0 +1,46 @@
+import { NextResponse, type NextRequest } from 'next/server';
+import { COMMON_SECURITY_HEADERS, contentSecurityPolicy, makeNonce } from '@/lib/security/headers';
+import { checkApiRequest, ownOrigins } from '@/lib/security/requests';
+
+/**
+ * In front of every page and route handler: API writes must come from the app's own pages with
+ * a JSON body under the size limit; every page gets a fresh CSP nonce and the security headers;
+ * API answers (personal data) are never cached.
+ */
+export function proxy(request: NextRequest) {
+  const { pathname } = request.nextUrl;
+
+  if (pathname.startsWith('/api/')) {
+    const verdict = checkApiRequest({
+      method: request.method,
+      pathname,
+      headers: request.headers,
+      ownOrigins: ownOrigins(request.headers, request.nextUrl.protocol, [process.env.APP_URL, process.env.NEXTAUTH_URL]),
+    });
+    if (verdict) {
+      const res = NextResponse.json({ error: { code: verdict.code, message: verdict.message } }, { status: verdict.status });
+      return withHeaders(res, { 'Cache-Control': 'no-store' });
+    }
+    return withHeaders(NextResponse.next(), { 'Cache-Control': 'no-store' });
+  }
+
+  const nonce = makeNonce();
+  const csp = contentSecurityPolicy(nonce, { dev: process.env.NODE_ENV === 'development' });
+  const requestHeaders = new Headers(request.headers);
+  requestHeaders.set('x-nonce', nonce);
+  requestHeaders.set('Content-Security-Policy', csp);
+  const res = NextResponse.next({ request: { headers: requestHeaders } });
+  return withHeaders(res, { 'Content-Security-Policy': csp });
+}
+
+function withHeaders(res: NextResponse, extra: Record<string, string>) {
+  for (const [k, v] of Object.entries({ ...COMMON_SECURITY_HEADERS, ...extra })) res.headers.set(k, v);
+  return res;
+}
+
+export const config = {
+  matcher: [
+    // Everything but the build's static files (those get their headers from next.config.mjs).
+    '/((?!_next/static|_next/image|favicon.ico|icon.svg).*)',
+  ],
+};
