@@ -7,6 +7,9 @@ import { checkApiRequest, ownOrigins } from '@/lib/security/requests';
  * a JSON body under the size limit; every page gets a fresh CSP nonce and the security headers;
  * API answers (personal data) are never cached.
  */
+/** API paths whose handlers set their own Cache-Control (private, for the signed-in person only). */
+const OWN_CACHING = ['/api/photos/'];
+
 export function proxy(request: NextRequest) {
   const { pathname } = request.nextUrl;
 
@@ -21,7 +24,8 @@ export function proxy(request: NextRequest) {
       const res = NextResponse.json({ error: { code: verdict.code, message: verdict.message } }, { status: verdict.status });
       return withHeaders(res, { 'Cache-Control': 'no-store' });
     }
-    return withHeaders(NextResponse.next(), { 'Cache-Control': 'no-store' });
+    // Photos set their own private caching; every other answer is kept out of caches.
+    return withHeaders(NextResponse.next(), OWN_CACHING.some((p) => pathname.startsWith(p)) ? {} : { 'Cache-Control': 'no-store' });
   }
 
   const nonce = makeNonce();
