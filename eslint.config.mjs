@@ -19,4 +19,9 @@ export default defineConfig([
     files: ['tests/e2e/**'],
     rules: { 'react-hooks/rules-of-hooks': 'off' },
   },
+  {
+    // CommonJS scripts load their modules with require().
+    files: ['**/*.cjs'],
+    rules: { '@typescript-eslint/no-require-imports': 'off' },
+  },
 ]);

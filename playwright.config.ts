@@ -1,5 +1,5 @@
 import { defineConfig, devices } from '@playwright/test';
-import { loadTestEnv } from './scripts/test-env.mjs';
+import { loadTestEnv } from './scripts/test-env.cjs';
 
 // The tests' own ports and database (scripts/test-env.sh), also when Playwright runs alone.
 const port = Number(loadTestEnv().E2E_PORT);

@@ -1,6 +1,6 @@
 import { defineConfig } from 'vitest/config';
 import { fileURLToPath } from 'node:url';
-import { loadTestEnv } from './scripts/test-env.mjs';
+import { loadTestEnv } from './scripts/test-env.cjs';
 
 const root = fileURLToPath(new URL('.', import.meta.url));
 

@@ -1,4 +1,4 @@
-import { loadTestEnv } from '../scripts/test-env.mjs';
+import { loadTestEnv } from '../scripts/test-env.cjs';
 
 // Outside `npm test` (a suite run alone), load the tests' environment here too.
 if (process.env.BRIXHOUSE_TEST_SERVER !== '1' || !process.env.DATABASE_URL?.endsWith('_test')) loadTestEnv();

@@ -1,8 +1,9 @@
 // The test set-up's environment for the vitest and Playwright configurations and the tests.
-import { execFileSync } from 'node:child_process';
-import { fileURLToPath } from 'node:url';
+// CommonJS, so that Playwright (which loads its config as CommonJS) and vitest's ESM config both load it.
+const { execFileSync } = require('node:child_process');
+const path = require('node:path');
 
-const ROOT = fileURLToPath(new URL('..', import.meta.url));
+const ROOT = path.resolve(__dirname, '..');
 const CORE = ['NODE_ENV', 'PORT', 'E2E_PORT', 'PG_PORT', 'DATABASE_URL', 'APP_URL', 'NEXTAUTH_URL', 'NEXTAUTH_SECRET', 'NEXT_DIST_DIR', 'BRIXHOUSE_TEST_SERVER', 'SMTP_PORT', 'MAIL_WEB_PORT'];
 
 /**
@@ -12,7 +13,7 @@ const CORE = ['NODE_ENV', 'PORT', 'E2E_PORT', 'PG_PORT', 'DATABASE_URL', 'APP_UR
  * run alone reaches the tests' database, never the development one.
  * @returns {Record<string, string>}
  */
-export function loadTestEnv() {
+function loadTestEnv() {
   // Every variable the scripts set or change, read from a shell before and after sourcing them.
   const out = execFileSync('bash', ['-c', 'env -0; printf "\\0--\\0"; source scripts/lib.sh && source scripts/test-env.sh && env -0'], {
     cwd: ROOT,
@@ -37,3 +38,5 @@ export function loadTestEnv() {
   Object.assign(process.env, vars);
   return vars;
 }
+
+module.exports = { loadTestEnv };
