@@ -132,7 +132,9 @@ export async function changeRole(ctx: PersonCtx, userId: string, input: RoleChan
     }
     const changed = user.role !== input.role || user.householdId !== householdId;
     await user.update({ role: input.role, householdId }, { transaction });
-    if (changed) await endSessions(user.id, transaction);
+    // Their next request reads the new role and household (no stale powers); open sockets
+    // reconnect and are checked afresh.
+    if (changed) transaction.afterCommit(() => disconnectPerson(user.id));
     return personDto(user);
   });
 }
