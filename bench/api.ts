@@ -154,6 +154,8 @@ export function apiFigures(section: string, results: ApiRun[], unavailable: { sp
     const rps = summarise(r.runs.map((x) => x.reqPerSec));
     const p99 = summarise(r.runs.map((x) => x.p99Ms));
     const bad = r.runs.reduce((s, x) => s + x.non2xx + x.errors, 0);
+    // A run in which no request completed has no latency to speak of: it fails every target.
+    const stalled = r.runs.filter((x) => x.ok === 0).length;
     const codes = [...new Set(r.runs.flatMap((x) => Object.keys(x.statusCodes)))].join(', ');
     let ratio: number | null = null;
     let baselineName: string | null = null;
@@ -168,7 +170,7 @@ export function apiFigures(section: string, results: ApiRun[], unavailable: { sp
       baselineName = ceiling.spec.name;
       if (r.spec.kind === 'read') {
         rateTarget = '≥ 0.5× ceiling';
-        rateMet = ratio >= 0.5 && bad === 0;
+        rateMet = Number.isFinite(ratio) && ratio >= 0.5 && bad === 0 && stalled === 0;
       }
     }
     figures.push({
@@ -183,7 +185,10 @@ export function apiFigures(section: string, results: ApiRun[], unavailable: { sp
       min: rps.min,
       max: rps.max,
       runs: rps.values,
-      note: bad ? `${bad} non-2xx answers or errors over the runs (status codes: ${codes})` : undefined,
+      note:
+        [bad ? `${bad} non-2xx answers or errors over the runs (status codes: ${codes})` : '', stalled ? `no request completed in ${stalled} of ${r.runs.length} runs` : '']
+          .filter(Boolean)
+          .join('; ') || undefined,
     });
     if (r.spec.kind === 'read' || r.spec.kind === 'write') {
       const limit = r.spec.kind === 'write' ? 250 : 200;
@@ -195,7 +200,7 @@ export function apiFigures(section: string, results: ApiRun[], unavailable: { sp
         baseline: null,
         ratio: null,
         target: `≤ ${limit} ms`,
-        met: p99.median <= limit,
+        met: stalled === 0 && p99.median <= limit,
         min: p99.min,
         max: p99.max,
         runs: p99.values,
@@ -212,7 +217,7 @@ export function apiFigures(section: string, results: ApiRun[], unavailable: { sp
         baseline: `${ok.reduce((s, x) => s + x, 0)} 2xx answers`,
         ratio: null,
         target: 'rows = 2xx',
-        met: match,
+        met: match && ok.every((x) => x > 0),
         note: `per run: rows ${r.written.join(' / ')}; 2xx ${ok.join(' / ')}`,
       });
     }

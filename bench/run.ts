@@ -156,7 +156,12 @@ async function main() {
     if (sections.has('live')) {
       log('Live queue');
       if ((await probe(specs.find((x) => x.name === 'GET /api/queue')!, ctx)).available) {
-        report.figures.push(...(await liveQueue(ctx, { counts: [100, 500], durationS, log })));
+        try {
+          report.figures.push(...(await liveQueue(ctx, { counts: [100, 500], durationS, log })));
+        } catch (err) {
+          log(`  live queue: ${(err as Error).message}`);
+          report.figures.push({ section: 'live', name: 'live queue', value: null, unit: 'ms', baseline: null, ratio: null, target: '100 % delivered', met: false, note: (err as Error).message });
+        }
         report.commands.push(`live queue: viewers in a separate process (bench/viewers.ts), a drop-off posted every 200 ms for ${durationS} s while autocannon loads GET /api/slots`);
       } else {
         report.figures.push({ section: 'live', name: 'live queue', value: null, unit: 'ms', baseline: null, ratio: null, target: null, met: false, note: 'GET /api/queue not on this build yet' });
