@@ -37,7 +37,7 @@ beforeAll(async () => {
   execFileSync('node', ['--import', 'tsx', 'db/cli.ts', 'seed'], { env: cluster, stdio: 'ignore' });
   admin = new Sequelize(url, { dialect: 'postgres', dialectModule: pg, logging: false, retry: { max: 5, match: [/ECONNRESET|ECONNREFUSED|57P01|57P03|terminat/] } });
   servers.push(...(await Promise.all([startServer('restart-test-a', cluster), startServer('restart-test-b', cluster)])));
-}, 180_000);
+}, 300_000);
 
 afterAll(async () => {
   for (const s of sockets) s.close();
