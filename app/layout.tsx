@@ -2,6 +2,7 @@ import type { Metadata, Viewport } from 'next';
 import type { ReactNode } from 'react';
 import { connection } from 'next/server';
 import { Toaster } from '@/components/ui/toaster';
+import { CspNonce } from '@/components/shell/csp-nonce';
 import { brandFont } from './fonts';
 import './globals.css';
 
@@ -28,6 +29,7 @@ export default async function RootLayout({ children }: Readonly<{ children: Reac
   return (
     <html lang="en" className={brandFont.variable}>
       <body className="min-h-dvh bg-birch font-sans text-slate antialiased">
+        <CspNonce />
         {children}
         <Toaster />
       </body>

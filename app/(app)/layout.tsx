@@ -4,7 +4,6 @@ import { requireContext } from '@/lib/server/context';
 import { getCooperative } from '@/lib/coop/service';
 import { AppNav } from '@/components/shell/app-nav';
 import { NAV, ROLE_LABEL } from '@/components/shell/nav-items';
-import { SignOutButton } from '@/components/shell/sign-out-button';
 import { Logo } from '@/components/brand/logo';
 import { Badge } from '@/components/ui/badge';
 
@@ -21,17 +20,17 @@ export default async function AppLayout({ children }: { children: ReactNode }) {
               <Logo withWord />
               <span className="sr-only">Today</span>
             </Link>
-            <div className="flex items-center gap-2 text-sm">
+            <div className="flex min-w-0 items-center gap-2 text-sm">
               <span className="hidden text-slate-muted sm:inline">{coop.name}</span>
-              <span data-testid="signed-in-as" className="font-semibold">{user.name}</span>
+              <span data-testid="signed-in-as" className="truncate font-semibold">{user.name}</span>
               <Badge variant="spruce">{ROLE_LABEL[user.role]}</Badge>
-              <SignOutButton />
             </div>
           </div>
-          <AppNav items={NAV[user.role]} />
+          <AppNav nav={NAV[user.role]} />
         </div>
       </header>
-      <main className="mx-auto max-w-6xl px-4 py-6">{children}</main>
+      {/* Room at the bottom of a phone for the tab bar. */}
+      <main className="mx-auto max-w-6xl px-4 py-6 pb-28 md:pb-6">{children}</main>
     </div>
   );
 }

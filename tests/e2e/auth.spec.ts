@@ -1,13 +1,22 @@
-import { test, expect } from './fixtures';
+import { test, expect, openMore, signOutFrom } from './fixtures';
 import { clearMail, waitForMail } from '../mailbox';
 
-const navLinks = (page: import('@playwright/test').Page) => page.getByRole('navigation', { name: 'Main' }).getByRole('link');
+type Page = import('@playwright/test').Page;
+const dailyNames = async (page: Page) =>
+  page.getByRole('navigation', { name: 'Main' }).getByRole('link').evaluateAll((els) => els.map((e) => (e as HTMLElement).innerText.trim()));
+const moreNames = async (page: Page) => {
+  const dialog = await openMore(page);
+  const names = await dialog.getByRole('link').evaluateAll((els) => els.map((e) => (e as HTMLElement).innerText.trim()));
+  await page.keyboard.press('Escape');
+  return names;
+};
 
 test.describe('signing in by role', () => {
   test('a member sees the member navigation and is turned away from coordinator pages', async ({ page, signInAs }) => {
     await signInAs('okafor@larkspur.example');
     await expect(page).toHaveURL(/\/home$/);
-    await expect(navLinks(page)).toHaveText(['Today', 'Boil calendar']);
+    expect(await dailyNames(page)).toEqual(['Boil calendar', 'Our drop-offs', 'Boil queue', 'Season ledger']);
+    expect(await moreNames(page)).toEqual(['Today', 'Your account']);
     await expect(page.getByText('Member', { exact: true })).toBeVisible();
     await page.goto('/households');
     await expect(page).toHaveURL(/\/not-allowed$/);
@@ -18,15 +27,17 @@ test.describe('signing in by role', () => {
 
   test('a sugarmaker sees the sugarmaker navigation', async ({ page, signInAs }) => {
     await signInAs('sugarmaker@larkspur.example');
-    await expect(navLinks(page)).toHaveText(['Today', 'Boil calendar', 'Sugarhouse']);
+    expect(await dailyNames(page)).toEqual(['Boil calendar', 'Drop-off desk', 'Boil queue', 'Season ledger']);
+    expect(await moreNames(page)).toEqual(['Today', 'Runs', 'Sugarhouse', 'Your account']);
     await page.goto('/households');
     await expect(page).toHaveURL(/\/not-allowed$/);
   });
 
   test('a coordinator sees every page', async ({ page, signInAs }) => {
     await signInAs('coordinator@larkspur.example');
-    await expect(navLinks(page)).toHaveText(['Today', 'Boil calendar', 'Sugarhouse', 'Households', 'Settings']);
-    await page.getByRole('link', { name: 'Households' }).click();
+    expect(await dailyNames(page)).toEqual(['Boil calendar', 'Drop-off desk', 'Boil queue', 'Season ledger']);
+    expect(await moreNames(page)).toEqual(['Today', 'Runs', 'Households', 'Sugarhouse', 'Settings', 'Your account']);
+    await (await openMore(page)).getByRole('link', { name: 'Households' }).click();
     await expect(page.getByRole('heading', { name: 'Households', level: 1 })).toBeVisible();
     await expect(page.getByRole('cell', { name: 'Tremblay-Haddad', exact: true })).toBeVisible();
   });
@@ -43,8 +54,7 @@ test.describe('signing in by role', () => {
 
   test('sign-out ends the session', async ({ page, signInAs }) => {
     await signInAs('lindqvist@larkspur.example');
-    await page.getByRole('button', { name: 'Sign out' }).click();
-    await expect(page).toHaveURL(/\/sign-in/);
+    await signOutFrom(page);
     await page.goto('/home');
     await expect(page).toHaveURL(/\/sign-in/);
     expect((await page.request.get('/api/seasons')).status()).toBe(401);
@@ -67,8 +77,7 @@ test('a coordinator adds a person and the welcome e-mail arrives', async ({ page
   const link = mail.text.match(/http\S+\/welcome\/\S+/)![0];
 
   // The new member chooses a password from the link and signs in.
-  await page.getByRole('button', { name: 'Sign out' }).click();
-  await expect(page).toHaveURL(/\/sign-in/);
+  await signOutFrom(page);
   await page.goto(link);
   await page.getByLabel('New password').fill('tapping-the-sugarbush');
   await page.getByLabel('The same password again').fill('tapping-the-sugarbush');

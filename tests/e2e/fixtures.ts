@@ -17,6 +17,21 @@ export class SignInPage {
   }
 }
 
+/** Opens the "More" dialog of the signed-in navigation. */
+export async function openMore(page: Page) {
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('button', { name: 'More' }).click();
+  const dialog = page.getByRole('dialog', { name: 'More' });
+  await expect(dialog).toBeVisible();
+  return dialog;
+}
+
+/** Signs out through the "More" dialog. */
+export async function signOutFrom(page: Page) {
+  const dialog = await openMore(page);
+  await dialog.getByRole('button', { name: 'Sign out' }).click();
+  await expect(page).toHaveURL(/\/sign-in/);
+}
+
 interface Fixtures {
   signInPage: SignInPage;
   /** Signs in with a demo account and waits for the signed-in shell. */
