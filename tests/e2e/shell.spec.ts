@@ -54,14 +54,14 @@ test.describe('the phone shell at 360 px', () => {
         expect(box.height).toBeGreaterThanOrEqual(44);
         expect(box.width).toBeGreaterThanOrEqual(44);
         await link.click();
-        await expect(page).toHaveURL(new RegExp(`${href}$`));
+        await expect(page).toHaveURL(new RegExp(`${href}$`), { timeout: 30_000 });
         await expect(main.getByRole('link', { name, exact: true })).toHaveAttribute('aria-current', 'page');
         await noSidewaysScroll(page);
       }
       for (const [name, href] of role.more) {
         const dialog = await openMore(page);
         await dialog.getByRole('link', { name, exact: true }).click();
-        await expect(page).toHaveURL(new RegExp(`${href}$`));
+        await expect(page).toHaveURL(new RegExp(`${href}$`), { timeout: 30_000 });
         await expect(dialog).toBeHidden();
         await noSidewaysScroll(page);
         // The current page is marked inside the dialog too.
