@@ -44,7 +44,9 @@ describe('sessions follow the database', { timeout: 120_000 }, () => {
     expect((await coordinator.patch(`/api/people/${person.id}`, { role: 'member', householdId: to.id })).status).toBe(200);
     const evaporatorId = (await member.get('/api/evaporators')).body[0].id as string;
     // Booking for the old household is now someone else's household: refused.
-    const r = await member.post('/api/slots', { evaporatorId, householdId: from.id, startsAt: '2099-01-01T10:00:00Z', endsAt: '2099-01-01T12:00:00Z' });
+    // Two days from now, inside the open demo season and the co-op's booking hours.
+    const day = new Date(Date.now() + 2 * 86_400_000).toISOString().slice(0, 10);
+    const r = await member.post('/api/slots', { evaporatorId, householdId: from.id, startsAt: `${day}T15:00:00Z`, endsAt: `${day}T17:00:00Z` });
     expect(r.status).toBe(403);
     expect((await coordinator.patch(`/api/people/${person.id}`, { role: 'member', householdId: from.id })).status).toBe(200);
   });
