@@ -18,3 +18,17 @@ export async function closeTestDb() {
   await sequelize?.close();
   sequelize = undefined;
 }
+
+/**
+ * The demo co-op's households, name → id. Other suites generate co-ops of their own in the same
+ * database (some with the same household names), so every lookup is scoped to Larkspur.
+ */
+export async function larkspurHouseholds(): Promise<Record<string, string>> {
+  const hh = await rows<{ id: string; name: string }>(
+    `SELECT h.id, h.name FROM households h
+       JOIN cooperatives c ON c.id = h.cooperative_id
+      WHERE c.id = (SELECT cooperative_id FROM users WHERE email = 'coordinator@larkspur.example')
+      ORDER BY h.name`,
+  );
+  return Object.fromEntries(hh.map((h) => [h.name, h.id]));
+}

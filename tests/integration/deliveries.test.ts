@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DateTime } from 'luxon';
 import { Client, signedIn } from './http';
-import { closeTestDb, rows, testDb } from './db';
+import { closeTestDb, larkspurHouseholds, rows, testDb } from './db';
 import { clearMail, listMail, waitForMail } from '../mailbox';
 import { BASE_URL } from '../test-env';
 import { sugarKg } from '@/lib/sugar';
@@ -52,8 +52,7 @@ beforeAll(async () => {
   coordinator = await signedIn('coordinator@larkspur.example');
   okafor = await signedIn('okafor@larkspur.example');
   lindqvist = await signedIn('lindqvist@larkspur.example');
-  const hh = await rows<{ id: string; name: string }>('SELECT id, name FROM households');
-  households = Object.fromEntries(hh.map((h) => [h.name, h.id]));
+  households = await larkspurHouseholds();
   // A second cooperative, to check that nothing crosses between co-ops.
   const [coop] = await rows<{ id: string }>(
     "INSERT INTO cooperatives (name, time_zone, elevation_m, unit_system, currency) VALUES ('Brindle Creek Sap Co-op', 'America/Toronto', 200, 'metric', 'CAD') RETURNING id",
@@ -197,8 +196,11 @@ describe('reading drop-offs', () => {
     expect(all.status).toBe(200);
     for (const l of all.body) expect(DateTime.fromISO(l.receivedAt, { zone: ZONE }).toISODate()).toBe(day);
     const expected = await rows<{ n: string }>(
-      `SELECT count(*) AS n FROM sap_deliveries WHERE (received_at AT TIME ZONE 'America/New_York')::date = :day`,
-      { day },
+      // Only Larkspur's lots: other suites' test co-ops share the database.
+      `SELECT count(*) AS n FROM sap_deliveries
+        WHERE cooperative_id = (SELECT cooperative_id FROM households WHERE id = :h)
+          AND (received_at AT TIME ZONE 'America/New_York')::date = :day`,
+      { day, h: households['Tremblay-Haddad'] },
     );
     expect(all.body).toHaveLength(Number(expected[0].n));
     const rejected = await coordinator.get(`/api/deliveries?status=rejected&householdId=${households['Tremblay-Haddad']}`);

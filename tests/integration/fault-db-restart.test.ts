@@ -4,7 +4,7 @@ import { promisify } from 'node:util';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DateTime } from 'luxon';
 import { signedIn, type Client } from './http';
-import { closeTestDb, rows } from './db';
+import { closeTestDb, larkspurHouseholds, rows } from './db';
 
 // Fault test: PostgreSQL restarts (pg_ctl restart -m fast, open connections cut) while people
 // read and write. The server process must ride it out: it keeps running, nearly every request
@@ -35,7 +35,8 @@ beforeAll(async () => {
   reader = await signedIn('brennan@larkspur.example');
   writer = await signedIn('coordinator@larkspur.example');
   evaporatorId = (await reader.get('/api/evaporators')).body[0].id;
-  householdIds = (await rows<{ id: string }>('SELECT id FROM households ORDER BY name')).map((h) => h.id);
+  // Larkspur's households only: other suites' test co-ops share the database.
+  householdIds = Object.values(await larkspurHouseholds());
   // The drop-off is the natural idempotent write; slot booking stands in where it is missing.
   deliveriesLanded = (await writer.post('/api/deliveries', {})).status !== 404;
 });

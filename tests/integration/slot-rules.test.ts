@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DateTime } from 'luxon';
 import { type Client, signedIn } from './http';
-import { closeTestDb, rows, testDb } from './db';
+import { closeTestDb, larkspurHouseholds, rows, testDb } from './db';
 import { attachmentText, clearMail, waitForMail } from '../mailbox';
 import { formatSlotRange } from '@/lib/time';
 
@@ -32,7 +32,7 @@ const slotRow = async (id: string) =>
 beforeAll(async () => {
   sugarmaker = await signedIn('sugarmaker@larkspur.example');
   okafor = await signedIn('okafor@larkspur.example');
-  okaforId = (await rows<{ id: string }>("SELECT id FROM households WHERE name = 'Okafor'"))[0].id;
+  okaforId = (await larkspurHouseholds()).Okafor;
   // An evaporator of this file's own, so its slots cannot meet the demo bookings or other tests'.
   const [[spare]] = (await testDb().query(
     `INSERT INTO evaporators (cooperative_id, name, evaporation_lph, fuel_kind)

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DateTime } from 'luxon';
 import { Client, signedIn } from './http';
-import { closeTestDb, rows, testDb } from './db';
+import { closeTestDb, larkspurHouseholds, rows, testDb } from './db';
 import { attachmentText, clearMail, waitForMail } from '../mailbox';
 import { formatSlotRange } from '@/lib/time';
 
@@ -16,16 +16,16 @@ let households: Record<string, string>;
 const at = (days: number, hour: number, minute = 0) =>
   DateTime.now().setZone(ZONE).startOf('day').plus({ days }).set({ hour, minute }).toISO()!;
 
+/** Live slots on the demo co-op's evaporator in a time window (other suites' co-ops share the database). */
 const slotRows = (from: string, to: string) =>
-  rows("SELECT id FROM boil_slots WHERE status <> 'cancelled' AND starts_at < :to AND ends_at > :from", { from, to });
+  rows("SELECT id FROM boil_slots WHERE evaporator_id = :e AND status <> 'cancelled' AND starts_at < :to AND ends_at > :from", { from, to, e: evaporatorId });
 
 beforeAll(async () => {
   sugarmaker = await signedIn('sugarmaker@larkspur.example');
   okafor = await signedIn('okafor@larkspur.example');
   lindqvist = await signedIn('lindqvist@larkspur.example');
   evaporatorId = (await okafor.get('/api/evaporators')).body[0].id;
-  const hh = await rows<{ id: string; name: string }>('SELECT id, name FROM households');
-  households = Object.fromEntries(hh.map((h) => [h.name, h.id]));
+  households = await larkspurHouseholds();
 });
 
 afterAll(closeTestDb);
