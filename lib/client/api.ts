@@ -39,7 +39,7 @@ async function parse(res: Response): Promise<any> {
 export const fetcher = (url: string) => fetch(url, { headers: { accept: 'application/json' } }).then(parse);
 
 /** A JSON write to the API. */
-export function apiSend<T = unknown>(method: 'POST' | 'PATCH' | 'DELETE', url: string, body?: unknown): Promise<T> {
+export function apiSend<T = unknown>(method: 'POST' | 'PUT' | 'PATCH' | 'DELETE', url: string, body?: unknown): Promise<T> {
   return fetch(url, {
     method,
     headers: { 'content-type': 'application/json', accept: 'application/json' },

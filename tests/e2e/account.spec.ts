@@ -47,7 +47,7 @@ test('a sign-in link carrying callbackUrl=/%5Cevil.example ends on a Brixhouse p
 test('a person changes their name on the account page', async ({ page, signInAs }) => {
   await signInAs('brennan@larkspur.example');
   await page.goto('/account');
-  await page.getByLabel('Name').fill('Fintan Ó Brennan');
+  await page.getByLabel('Name', { exact: true }).fill('Fintan Ó Brennan');
   await page.getByRole('button', { name: 'Save name' }).click();
   await expect(page.getByTestId('signed-in-as')).toHaveText('Fintan Ó Brennan');
 });

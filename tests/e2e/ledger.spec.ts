@@ -15,6 +15,18 @@ test.describe('settling the season', () => {
     await expect(page.getByTestId('ledger-row-Okafor')).toBeVisible();
     await expect(page.getByTestId('volume-row-Okafor')).toBeVisible();
     await page.screenshot({ path: '.tmp/screens/ledger-desktop.png', fullPage: true });
+
+    // A season fee for one household: a wrong amount is refused at the field, a right one shows in its row.
+    const fees = page.getByRole('form', { name: 'Season fees' });
+    await fees.getByLabel('Household', { exact: true }).selectOption({ label: 'Okafor' });
+    await fees.getByLabel('Fee (USD)').fill('thirty');
+    await fees.getByRole('button', { name: 'Save fee' }).click();
+    await expect(fees.getByLabel('Fee (USD)')).toHaveAttribute('aria-invalid', 'true');
+    await fees.getByLabel('Fee (USD)').fill('35');
+    await fees.getByRole('button', { name: 'Save fee' }).click();
+    await expect(fees.getByText('The Okafor household’s fee is saved.')).toBeVisible();
+    await expect(page.getByTestId('ledger-row-Okafor')).toContainText('$35.00');
+
     await page.getByRole('button', { name: 'Close the season' }).click();
     await expect(page.getByRole('status')).toContainText('The season is closed');
     await page.getByRole('button', { name: 'Settle and send statements' }).click();

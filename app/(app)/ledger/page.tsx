@@ -10,6 +10,7 @@ import { Table, TBody, TD, TH, THead, TR } from '@/components/ui/table';
 import { Badge } from '@/components/ui/badge';
 import { buttonVariants } from '@/components/ui/button';
 import { SeasonActions } from '@/components/ledger/season-actions';
+import { SeasonFees } from '@/components/ledger/season-fees';
 import { SugarChartLazy } from '@/components/ledger/sugar-chart-lazy';
 
 export const metadata: Metadata = { title: 'Season ledger' };
@@ -176,6 +177,16 @@ export default async function LedgerPage({ searchParams }: { searchParams: Promi
               </a>
             </div>
             {user.role === 'coordinator' && <SeasonActions seasonId={ledger.seasonId} status={ledger.season.status} />}
+            {user.role === 'coordinator' && ledger.season.status !== 'settled' && (
+              <div className="mt-4 flex flex-col gap-2 border-t border-birch-line pt-4">
+                <h3 className="font-semibold">Season fees</h3>
+                <SeasonFees
+                  seasonId={ledger.seasonId}
+                  currency={ledger.currency}
+                  households={ledger.households.map((h) => ({ householdId: h.householdId, name: h.name, feeCents: h.feeCents }))}
+                />
+              </div>
+            )}
             {isMember && (
               <p className="text-sm text-slate-muted">
                 Other households: {ledger.householdNames.filter((h) => h.householdId !== user.householdId).map((h) => h.name).join(', ')}.
