@@ -12,7 +12,8 @@ const bookingDay = () => DateTime.now().setZone(ZONE).startOf('day').plus({ days
 /** Opens the Boil calendar in day view on the booking day, with live updates connected. */
 async function openBookingDay(page: Page, day: DateTime) {
   await page.goto('/calendar');
-  await expect(page.getByTestId('live-status')).toHaveAttribute('data-status', 'live');
+  // A loaded two-core machine can take many seconds to hydrate the calendar before the socket opens.
+  await expect(page.getByTestId('live-status')).toHaveAttribute('data-status', 'live', { timeout: 45_000 });
   await page.getByRole('button', { name: 'Day', exact: true }).click();
   await page.getByRole('button', { name: 'Today', exact: true }).click();
   const ahead = Math.round(day.diff(DateTime.now().setZone(ZONE).startOf('day'), 'days').days);

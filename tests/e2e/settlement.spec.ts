@@ -1,3 +1,6 @@
+// This spec closes and settles the demo co-op's open season, after which no lot or run can be
+// added to it. Playwright runs the spec files in name order on one worker, and every spec that
+// logs lots or runs (deliveries, queue, calendar) sorts before this one; keep it that way.
 import { test, expect } from './fixtures';
 import { clearMail, waitForMail } from '../mailbox';
 
