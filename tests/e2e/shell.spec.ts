@@ -104,7 +104,8 @@ test('the desktop shows the four daily jobs by name with "More" beside them, and
   const main = page.getByRole('navigation', { name: 'Main' });
   for (const name of ['Boil calendar', 'Drop-off desk', 'Boil queue', 'Season ledger']) await expect(main.getByRole('link', { name, exact: true })).toBeVisible();
   await main.getByRole('link', { name: 'Boil calendar' }).click();
-  await expect(page.locator('.fc')).toBeVisible();
+  // A loaded two-core machine can take many seconds to hydrate the calendar.
+  await expect(page.locator('.fc')).toBeVisible({ timeout: 45_000 });
   // The calendar's injected styles are in force (a CSP refusal would leave them out): its
   // own stylesheet lays the calendar out as a column (the app draws its own toolbar).
   await expect(page.locator('.fc').first()).toHaveCSS('flex-direction', 'column');
