@@ -33,7 +33,13 @@ export interface ServerProcess {
  * Another real server.ts (the production build the tests use) on a free port, with `env` over
  * the tests' environment; its output goes to `.data/<name>.log`. Resolves once /api/health answers.
  */
-export async function startServer(name: string, env: NodeJS.ProcessEnv): Promise<ServerProcess> {
+export async function startServer(
+  name: string,
+  env: NodeJS.ProcessEnv,
+  startTimeoutMs = 90_000,
+  /** Whether the health answer means "up"; a test that stops the mail server accepts `database: 'up'` alone. */
+  isUp: (health: { ok?: boolean; database?: string }) => boolean = (h) => h.ok === true,
+): Promise<ServerProcess> {
   const port = await freePort();
   const url = `http://127.0.0.1:${port}`;
   const log = openSync(`.data/${name}.log`, 'w');
@@ -41,6 +47,6 @@ export async function startServer(name: string, env: NodeJS.ProcessEnv): Promise
     env: { ...env, NODE_ENV: 'production', NEXT_DIST_DIR: env.NEXT_DIST_DIR ?? '.next-test', PORT: String(port), APP_URL: url, NEXTAUTH_URL: url },
     stdio: ['ignore', log, log],
   });
-  await until(`${name} answering at ${url} (see .data/${name}.log)`, async () => child.exitCode === null && (await fetch(`${url}/api/health`)).ok, 90_000);
+  await until(`${name} answering at ${url} (see .data/${name}.log)`, async () => child.exitCode === null && isUp(await (await fetch(`${url}/api/health`)).json()), startTimeoutMs);
   return { url, process: child, stop: () => void child.kill('SIGTERM') };
 }

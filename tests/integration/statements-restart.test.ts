@@ -17,6 +17,8 @@ const webPort = process.env.MAIL_WEB_PORT ?? '1180';
 const maildev = (action: 'start' | 'stop') => execFileSync('bash', ['scripts/mail.sh', action, 'maildev-test', smtpPort, webPort], { stdio: 'inherit' });
 
 let ex: WorkedExample;
+/** The mail server is down on purpose here, so the server is up once its database is. */
+const databaseUp = (h: { database?: string }) => h.database === 'up';
 let server: ServerProcess | undefined;
 
 const statementsTo = async (address: string) =>
@@ -40,9 +42,9 @@ afterAll(async () => {
 });
 
 describe('a server killed while it sends the statements', () => {
-  it('queues the unsent statements again when it starts, and every household gets its statement once', { timeout: 240_000 }, async () => {
+  it('queues the unsent statements again when it starts, and every household gets its statement once', { timeout: 720_000 }, async () => {
     maildev('stop');
-    server = await startServer('statements-restart', process.env);
+    server = await startServer('statements-restart', process.env, 240_000, databaseUp);
     const coordinator = await signedIn(ex.emails.coordinator, server.url);
     const sent = await coordinator.post(`/api/seasons/${ex.seasonId}/settlement/send`);
     expect(sent.status).toBe(200);
@@ -75,7 +77,7 @@ describe('a server killed while it sends the statements', () => {
     expect(Number(unsent.n)).toBe(3);
 
     // Started again: the unsent statements are queued again before any mail can go.
-    server = await startServer('statements-restart', process.env);
+    server = await startServer('statements-restart', process.env, 240_000, databaseUp);
     await until('the statements queued again', async () => (await jobCount(ids)) >= 3, 30_000, 250);
 
     maildev('start');
