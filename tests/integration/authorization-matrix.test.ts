@@ -117,6 +117,17 @@ async function displayLink(coop: string) {
   return r.id;
 }
 
+/** The signed-in actor's own name as the database has it. */
+const EMAIL: Record<Exclude<Actor, 'anonymous'>, string> = {
+  coordinator: 'coordinator@larkspur.example',
+  sugarmaker: 'sugarmaker@larkspur.example',
+  member: 'brennan@larkspur.example',
+};
+async function ownName(actor: Actor): Promise<string> {
+  if (actor === 'anonymous') return 'Nobody Signed In';
+  return (await rows<{ name: string }>('SELECT name FROM users WHERE email = :e', { e: EMAIL[actor] }))[0].name;
+}
+
 const deliveryBody = (householdId: string) => ({
   householdId,
   volumeL: 150,
@@ -201,6 +212,39 @@ const TABLE: Case[] = [
     scope: 'co-op',
     expect: { anonymous: [400, 404, 410, 422], coordinator: [400, 404, 410, 422], sugarmaker: [400, 404, 410, 422], member: [400, 404, 410, 422] },
     request: async () => ({ path: '/api/invitations/accept', body: { token: randomBytes(24).toString('hex'), password: 'a-long-enough-password' } }),
+  },
+  // The signed-in person's own account: everyone acts on themself only. The name is set to what
+  // it is, and the password change carries a wrong current password, so the matrix's sessions
+  // live on (sign out everywhere ends them: tests/integration/sessions.test.ts covers it, and
+  // the signed-out check at the end covers its 401).
+  {
+    route: 'PATCH /api/account',
+    scope: 'co-op',
+    expect: everyone(200),
+    request: async (_f, actor) => ({ path: '/api/account', body: { name: await ownName(actor) } }),
+    check: async (body, actor) => {
+      expect(JSON.stringify(body)).toContain(await ownName(actor));
+    },
+  },
+  {
+    route: 'POST /api/account/password',
+    scope: 'co-op',
+    expect: everyone(422),
+    request: async () => ({ path: '/api/account/password', body: { currentPassword: 'not-the-password', newPassword: 'a-long-enough-password' } }),
+  },
+  // Asked for and accepted by people who cannot sign in: the same answer whoever asks, and never
+  // whether an address has an account.
+  {
+    route: 'POST /api/password-resets',
+    scope: 'co-op',
+    expect: { anonymous: 202, coordinator: 202, sugarmaker: 202, member: 202 },
+    request: async () => ({ path: '/api/password-resets', body: { email: `matrix-nobody-${counter++}@larkspur.example` } }),
+  },
+  {
+    route: 'POST /api/password-resets/accept',
+    scope: 'co-op',
+    expect: { anonymous: [400, 404, 410, 422], coordinator: [400, 404, 410, 422], sugarmaker: [400, 404, 410, 422], member: [400, 404, 410, 422] },
+    request: async () => ({ path: '/api/password-resets/accept', body: { token: randomBytes(24).toString('hex'), password: 'a-long-enough-password' } }),
   },
   {
     route: 'POST /api/people',
@@ -386,9 +430,9 @@ beforeAll(async () => {
     other: { ...other, household: otherHousehold.id, evaporator: otherEvaporator.id, person: otherPerson.id, ids: new Set(otherIds.map((r) => r.id)) },
   };
   clients.anonymous = new Client();
-  clients.coordinator = await signedIn('coordinator@larkspur.example');
-  clients.sugarmaker = await signedIn('sugarmaker@larkspur.example');
-  clients.member = await signedIn('brennan@larkspur.example');
+  clients.coordinator = await signedIn(EMAIL.coordinator);
+  clients.sugarmaker = await signedIn(EMAIL.sugarmaker);
+  clients.member = await signedIn(EMAIL.member);
 }, 120_000);
 
 // Leave Larkspur as the other test files expect it: remove what the matrix added there.
