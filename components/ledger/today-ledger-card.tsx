@@ -1,20 +1,21 @@
 import Link from 'next/link';
-import { contextOf, getLedger, getStatement, statementIdFor } from '@/lib/ledger/service';
+import { getLedger, getStatement, statementIdFor } from '@/lib/ledger/service';
+import type { PersonCtx } from '@/lib/server/context';
 import { formatShare, formatSyrup } from '@/lib/ledger/format';
 import { formatMass, formatMoney } from '@/lib/sugar';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { buttonVariants } from '@/components/ui/button';
 
 export interface TodayLedgerCardProps {
-  user: { id: string; role: 'member' | 'sugarmaker' | 'coordinator'; householdId: string | null; cooperativeId: string };
+  /** The signed-in member's request context. */
+  ctx: PersonCtx;
   openSeasonId: string | null;
   /** The latest settled season, whose statement a member can open and pay. */
   settledSeasonId: string | null;
 }
 
 /** Today, for a member: the household's season so far, and its last statement with the pay link. */
-export async function TodayLedgerCard({ user, openSeasonId, settledSeasonId }: TodayLedgerCardProps) {
-  const ctx = contextOf(user);
+export async function TodayLedgerCard({ ctx, openSeasonId, settledSeasonId }: TodayLedgerCardProps) {
   const [ledger, statementId] = await Promise.all([
     openSeasonId ? getLedger(ctx, openSeasonId) : Promise.resolve(null),
     settledSeasonId ? statementIdFor(ctx, settledSeasonId) : Promise.resolve(null),

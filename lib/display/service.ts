@@ -1,19 +1,16 @@
 import 'server-only';
 import type { Server } from 'socket.io';
 import { db } from '@/db/models';
-import { ApiError } from '@/lib/api/errors';
-import type { SessionUser } from '@/lib/auth/session';
+import type { PersonCtx } from '@/lib/server/context';
+import { forbidden, notFound } from '@/lib/server/errors';
 import { appUrl } from '@/lib/env';
 import { displayRoom, hashDisplayToken, newDisplayToken } from './tokens';
 import type { DisplayLinkDto } from './types';
 
-interface Ctx {
-  actor: Pick<SessionUser, 'id' | 'role'>;
-  cooperativeId: string;
-}
+type Ctx = PersonCtx;
 
 function mustCoordinate(ctx: Ctx) {
-  if (ctx.actor.role !== 'coordinator') throw new ApiError(403, 'Only the coordinator manages display links.');
+  if (ctx.actor.role !== 'coordinator') throw forbidden('Only the coordinator manages display links.');
 }
 
 export async function listDisplayLinks(ctx: Ctx): Promise<DisplayLinkDto[]> {
@@ -26,17 +23,17 @@ export async function listDisplayLinks(ctx: Ctx): Promise<DisplayLinkDto[]> {
 export async function createDisplayLink(ctx: Ctx, { name }: { name: string }): Promise<DisplayLinkDto & { url: string }> {
   mustCoordinate(ctx);
   const token = newDisplayToken();
-  const link = await db().DisplayLink.create({ cooperativeId: ctx.cooperativeId, name, tokenHash: hashDisplayToken(token), createdById: ctx.actor.id });
+  const link = await db().DisplayLink.create({ cooperativeId: ctx.cooperativeId, name, tokenHash: hashDisplayToken(token), createdById: ctx.actor.userId });
   return { id: link.id, name: link.name, createdAt: link.createdAt.toISOString(), revokedAt: null, url: `${appUrl()}/display/${token}` };
 }
 
 /** Revokes a link: its page answers 404 from now on and the screens showing it are disconnected. */
 export async function revokeDisplayLink(ctx: Ctx, id: string): Promise<DisplayLinkDto> {
   mustCoordinate(ctx);
-  if (!/^[0-9a-f-]{36}$/i.test(id)) throw new ApiError(404, 'That display link was not found.');
+  if (!/^[0-9a-f-]{36}$/i.test(id)) throw notFound('That display link');
   const link = await db().DisplayLink.findOne({ where: { id, cooperativeId: ctx.cooperativeId } });
-  if (!link) throw new ApiError(404, 'That display link was not found.');
-  if (!link.revokedAt) await link.update({ revokedAt: new Date(), revokedById: ctx.actor.id });
+  if (!link) throw notFound('That display link');
+  if (!link.revokedAt) await link.update({ revokedAt: new Date(), revokedById: ctx.actor.userId });
   const io = (globalThis as unknown as { __brixhouseIo?: Server }).__brixhouseIo;
   // Through the adapter this reaches the screens on every server process.
   io?.in(displayRoom(link.id)).disconnectSockets(true);

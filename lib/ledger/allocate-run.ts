@@ -1,7 +1,7 @@
 // Server code only (it talks to the database), but without the 'server-only' marker: the Runs
 // service, server.ts and the tests import it under plain Node, where that marker throws.
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { ApiError } from '@/lib/api/errors';
+import { AppError } from '@/lib/server/errors';
 import type { GradeClass } from '@/lib/sugar/grade';
 import { allocateRunRows, type RunAllocation } from './rules';
 
@@ -9,16 +9,16 @@ import { allocateRunRows, type RunAllocation } from './rules';
 export interface AllocateRunContext {
   cooperativeId: string;
   transaction: Transaction;
-  actor?: { id: string; role: string } | null;
+  /** The person who finished the run, kept in the allocation history (none for the seed). */
+  actorId?: string | null;
 }
 
 /** A run that cannot be allocated (not this co-op's, not finished, or syrup with no sugar in). */
-export class RunAllocationError extends ApiError {
-  constructor(
-    message: string,
-    readonly code: 'run_not_found' | 'run_not_finished' | 'run_without_sugar',
-  ) {
-    super(code === 'run_not_found' ? 404 : code === 'run_not_finished' ? 409 : 422, message, code === 'run_without_sugar' ? { runId: message } : undefined, { code });
+export class RunAllocationError extends AppError {
+  constructor(message: string, code: 'run_not_found' | 'run_not_finished' | 'run_without_sugar') {
+    super(code === 'run_not_found' ? 'not_found' : code === 'run_not_finished' ? 'conflict' : 'invalid', code, message, {
+      fields: code === 'run_without_sugar' ? { runId: message } : undefined,
+    });
     this.name = 'RunAllocationError';
   }
 }
@@ -107,7 +107,7 @@ export async function allocateRun(ctx: AllocateRunContext, runId: string): Promi
     replacements: { runId, cooperativeId },
     transaction,
   });
-  const actorId = ctx.actor?.id ?? null;
+  const actorId = ctx.actorId ?? null;
   if (rows.length) {
     const values: string[] = [];
     const replacements: Record<string, unknown> = { runId, cooperativeId, seasonId: run.seasonId, actorId };

@@ -2,7 +2,7 @@
 // season with it under plain Node.
 import { QueryTypes, type Transaction } from 'sequelize';
 import { getSequelize } from '@/db';
-import { ApiError } from '@/lib/api/errors';
+import { AppError, type ErrorKind, type FieldErrors } from '@/lib/server/errors';
 import { GRADE_CLASSES } from '@/lib/sugar/grade';
 import { ledgerRuns, settle, sugarByWeek, emptyByClass, type AllocationRow, type DeliveryRow } from './rules';
 import type { Ledger } from './types';
@@ -13,8 +13,8 @@ export interface LedgerReadContext {
   transaction?: Transaction;
 }
 
-export const fail = (status: number, code: string, message: string, fields?: Record<string, string>) =>
-  new ApiError(status, message, fields, { code });
+/** A domain error of the ledger's, with its stable code (the HTTP layer gives it its status). */
+export const fail = (kind: ErrorKind, code: string, message: string, fields?: FieldErrors) => new AppError(kind, code, message, { fields });
 
 export const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
@@ -35,7 +35,7 @@ export interface SeasonRow {
 }
 
 export async function seasonOf(ctx: LedgerReadContext, seasonId: string, { lock = false } = {}): Promise<SeasonRow> {
-  if (!UUID.test(seasonId)) throw fail(404, 'not_found', 'That season was not found.');
+  if (!UUID.test(seasonId)) throw fail('not_found', 'not_found', 'That season was not found.');
   const [season] = await select<SeasonRow>(
     `SELECT s.id, s.label, s.status, s.starts_on AS "startsOn", s.ends_on AS "endsOn", c.currency,
             c.unit_system AS "unitSystem", c.time_zone AS "timeZone", c.name AS "cooperativeName"
@@ -44,7 +44,7 @@ export async function seasonOf(ctx: LedgerReadContext, seasonId: string, { lock 
     { seasonId, cooperativeId: ctx.cooperativeId },
     ctx.transaction,
   );
-  if (!season) throw fail(404, 'not_found', 'That season was not found.');
+  if (!season) throw fail('not_found', 'not_found', 'That season was not found.');
   return season;
 }
 

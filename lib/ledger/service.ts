@@ -1,26 +1,21 @@
 import 'server-only';
-import type { Transaction } from 'sequelize';
 import { getSequelize } from '@/db';
 import { recordChange } from '@/lib/events';
 import { computeLedger, fail, insertSettlements, seasonOf, select, UUID } from './ledger-data';
 
 export { fail };
-import type { Role } from '@/lib/roles';
+import type { PersonCtx } from '@/lib/server/context';
 import { settlementRow } from './rules';
 import { storedAllocation } from './allocate-run';
 import { enqueueStatements } from './statement-mail';
 import { loadStatement } from './statement-data';
 import type { Ledger, Settlement, Statement } from './types';
 
-/** Who acts and for which co-op; `transaction` when the caller already holds one. */
-export interface LedgerContext {
-  actor: { id: string; role: Role; householdId: string | null };
-  cooperativeId: string;
-  transaction?: Transaction;
-}
+/** Who acts (a signed-in person) and for which co-op; `transaction` when the caller already holds one. */
+export type LedgerContext = PersonCtx;
 
 const requireCoordinator = (ctx: LedgerContext, what: string) => {
-  if (ctx.actor.role !== 'coordinator') throw fail(403, 'forbidden', `Only a coordinator can ${what}.`);
+  if (ctx.actor.role !== 'coordinator') throw fail('forbidden', 'forbidden', `Only a coordinator can ${what}.`);
 };
 
 /** What a member may see: its own row, runs and statement, the co-op totals, the other names. */
@@ -71,13 +66,13 @@ export async function closeSeason(ctx: LedgerContext, seasonId: string): Promise
     if (season.status === 'closed' || season.status === 'settled') {
       return { id: season.id, label: season.label, startsOn: season.startsOn, endsOn: season.endsOn, status: season.status };
     }
-    if (season.status !== 'open') throw fail(409, 'season_not_open', 'Only an open season can be closed.');
+    if (season.status !== 'open') throw fail('conflict', 'season_not_open', 'Only an open season can be closed.');
     const [running] = await select<{ lotCode: string }>(
       `SELECT lot_code AS "lotCode" FROM boil_runs WHERE season_id = :seasonId AND cooperative_id = :cooperativeId AND status = 'running' LIMIT 1`,
       { seasonId, cooperativeId: ctx.cooperativeId },
       transaction,
     );
-    if (running) throw fail(409, 'run_running', `Run ${running.lotCode} is still boiling: finish it before closing the season.`);
+    if (running) throw fail('conflict', 'run_running', `Run ${running.lotCode} is still boiling: finish it before closing the season.`);
     await getSequelize().query(`UPDATE seasons SET status = 'closed', updated_at = now() WHERE id = :seasonId`, {
       replacements: { seasonId },
       transaction,
@@ -99,9 +94,9 @@ export async function sendSettlement(ctx: LedgerContext, seasonId: string): Prom
     const tctx = { ...ctx, transaction };
     const season = await seasonOf(tctx, seasonId, { lock: true });
     if (season.status === 'open' || season.status === 'planned') {
-      throw fail(409, 'season_not_closed', 'Close the season before settling it.');
+      throw fail('conflict', 'season_not_closed', 'Close the season before settling it.');
     }
-    const made = await insertSettlements(tctx, season, ctx.actor.id);
+    const made = await insertSettlements(tctx, season, ctx.actor.userId);
     await enqueueStatements(made.map((m) => m.id), transaction);
     if (season.status !== 'settled') {
       await getSequelize().query(`UPDATE seasons SET status = 'settled', updated_at = now() WHERE id = :seasonId`, {
@@ -116,10 +111,10 @@ export async function sendSettlement(ctx: LedgerContext, seasonId: string): Prom
 
 /** GET /api/statements/:id — the household's people and coordinators only (others: 404). */
 export async function getStatement(ctx: LedgerContext, statementId: string): Promise<Statement> {
-  if (!UUID.test(statementId)) throw fail(404, 'not_found', 'That statement was not found.');
+  if (!UUID.test(statementId)) throw fail('not_found', 'not_found', 'That statement was not found.');
   const s = await loadStatement(getSequelize(), statementId, ctx.cooperativeId, ctx.transaction);
   const mayRead = ctx.actor.role === 'coordinator' || (ctx.actor.householdId !== null && ctx.actor.householdId === s?.householdId);
-  if (!s || !mayRead) throw fail(404, 'not_found', 'That statement was not found.');
+  if (!s || !mayRead) throw fail('not_found', 'not_found', 'That statement was not found.');
   return s;
 }
 
@@ -138,7 +133,7 @@ export async function setSeasonFee(ctx: LedgerContext, seasonId: string, househo
   requireCoordinator(ctx, 'set season fees');
   return getSequelize().transaction(async (transaction) => {
     const season = await seasonOf({ ...ctx, transaction }, seasonId, { lock: true });
-    if (season.status === 'settled') throw fail(409, 'season_settled', 'The season is settled: its fees can no longer change.');
+    if (season.status === 'settled') throw fail('conflict', 'season_settled', 'The season is settled: its fees can no longer change.');
     await getSequelize().query(
       `INSERT INTO season_fees (season_id, cooperative_id, household_id, fee_cents) VALUES (:seasonId, :cooperativeId, :householdId, :feeCents)
        ON CONFLICT (season_id, household_id) DO UPDATE SET fee_cents = EXCLUDED.fee_cents, updated_at = now()`,
@@ -148,12 +143,6 @@ export async function setSeasonFee(ctx: LedgerContext, seasonId: string, househo
   });
 }
 
-/** The ledger's context for a signed-in person. */
-export const contextOf = (user: { id: string; role: Role; householdId: string | null; cooperativeId: string }): LedgerContext => ({
-  actor: { id: user.id, role: user.role, householdId: user.householdId },
-  cooperativeId: user.cooperativeId,
-});
-
 /**
  * POST /api/runs/:id/reopen — a coordinator reopens a finished run of an open season so it can
  * be corrected; its allocation stays until the run is finished again, when it is recomputed in
@@ -161,7 +150,7 @@ export const contextOf = (user: { id: string; role: Role; householdId: string | 
  */
 export async function reopenRun(ctx: LedgerContext, runId: string, reason: string) {
   requireCoordinator(ctx, 'reopen a run');
-  if (!UUID.test(runId)) throw fail(404, 'not_found', 'That run was not found.');
+  if (!UUID.test(runId)) throw fail('not_found', 'not_found', 'That run was not found.');
   const sequelize = getSequelize();
   return sequelize.transaction(async (transaction) => {
     const [run] = await select<{ id: string; status: string; seasonStatus: string; lotCode: string }>(
@@ -171,9 +160,9 @@ export async function reopenRun(ctx: LedgerContext, runId: string, reason: strin
       { runId, cooperativeId: ctx.cooperativeId },
       transaction,
     );
-    if (!run) throw fail(404, 'not_found', 'That run was not found.');
-    if (run.seasonStatus !== 'open') throw fail(409, 'season_not_open', 'The season is closed: its runs can no longer change.');
-    if (run.status !== 'finished') throw fail(409, 'run_not_finished', 'Only a finished run can be reopened.');
+    if (!run) throw fail('not_found', 'not_found', 'That run was not found.');
+    if (run.seasonStatus !== 'open') throw fail('conflict', 'season_not_open', 'The season is closed: its runs can no longer change.');
+    if (run.status !== 'finished') throw fail('conflict', 'run_not_finished', 'Only a finished run can be reopened.');
     const current = await storedAllocation({ cooperativeId: ctx.cooperativeId, transaction }, runId);
     await sequelize.query(
       `UPDATE boil_runs SET status = 'running', finished_at = NULL, finished_by_id = NULL, updated_at = now()
@@ -183,7 +172,7 @@ export async function reopenRun(ctx: LedgerContext, runId: string, reason: strin
     await sequelize.query(
       `INSERT INTO allocation_revisions (cooperative_id, run_id, event, changed_by_id, reason, before, after)
        VALUES (:cooperativeId, :runId, 'reopened', :actorId, :reason, CAST(:rows AS jsonb), CAST(:rows AS jsonb))`,
-      { replacements: { cooperativeId: ctx.cooperativeId, runId, actorId: ctx.actor.id, reason, rows: JSON.stringify(current) }, transaction },
+      { replacements: { cooperativeId: ctx.cooperativeId, runId, actorId: ctx.actor.userId, reason, rows: JSON.stringify(current) }, transaction },
     );
     await recordChange({ cooperativeId: ctx.cooperativeId, transaction }, { type: 'run.reopened', runId });
     return { id: run.id, lotCode: run.lotCode, status: 'running' as const };

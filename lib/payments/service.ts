@@ -14,7 +14,7 @@ import { paymentClient } from './client';
  */
 export async function startCheckout(ctx: LedgerContext, statementId: string): Promise<{ url: string; sessionId: string }> {
   const s = await getStatement(ctx, statementId);
-  if (s.balanceCents <= 0) throw fail(409, 'nothing_to_pay', 'This statement is paid in full.');
+  if (s.balanceCents <= 0) throw fail('conflict', 'nothing_to_pay', 'This statement is paid in full.');
   const session = await paymentClient().checkout.sessions.create({
     mode: 'payment',
     client_reference_id: s.id,
@@ -32,7 +32,7 @@ export async function startCheckout(ctx: LedgerContext, statementId: string): Pr
     success_url: `${statementUrl(s.id)}?paid=1`,
     cancel_url: statementUrl(s.id),
   });
-  if (!session.url) throw fail(502, 'payment_service', 'The payment service gave no checkout page.');
+  if (!session.url) throw fail('unavailable', 'payment_service', 'The payment service gave no checkout page.');
   return { url: session.url, sessionId: session.id };
 }
 
@@ -48,7 +48,7 @@ export async function handleWebhook(rawBody: string, signature: string | null): 
     if (!signature) throw new Error('missing signature');
     event = paymentClient().webhooks.constructEvent(rawBody, signature, env().STRIPE_WEBHOOK_SECRET);
   } catch {
-    throw fail(400, 'invalid_signature', 'The webhook signature does not match.');
+    throw fail('bad_request', 'invalid_signature', 'The webhook signature does not match.');
   }
   const sequelize = getSequelize();
   return sequelize.transaction(async (transaction) => {
@@ -63,7 +63,7 @@ export async function handleWebhook(rawBody: string, signature: string | null): 
     const settlementId = session.metadata?.settlementId ?? session.client_reference_id ?? '';
     const cooperativeId = session.metadata?.cooperativeId ?? '';
     if (!/^[0-9a-f-]{36}$/i.test(settlementId) || !/^[0-9a-f-]{36}$/i.test(cooperativeId)) {
-      throw fail(422, 'unknown_statement', 'The payment names no statement of this co-op.');
+      throw fail('invalid', 'unknown_statement', 'The payment names no statement of this co-op.');
     }
     const [st] = await sequelize.query<{ id: string; householdId: string; dueCents: number; currency: string }>(
       `SELECT s.id, s.household_id AS "householdId", s.due_cents AS "dueCents", c.currency
@@ -71,14 +71,14 @@ export async function handleWebhook(rawBody: string, signature: string | null): 
         WHERE s.id = :settlementId AND s.cooperative_id = :cooperativeId FOR UPDATE OF s`,
       { replacements: { settlementId, cooperativeId }, type: QueryTypes.SELECT, transaction },
     );
-    if (!st) throw fail(422, 'unknown_statement', 'The payment names no statement of this co-op.');
+    if (!st) throw fail('invalid', 'unknown_statement', 'The payment names no statement of this co-op.');
     const [{ paid }] = await sequelize.query<{ paid: string }>(
       `SELECT COALESCE(sum(amount_cents), 0) AS paid FROM payments WHERE settlement_id = :settlementId`,
       { replacements: { settlementId }, type: QueryTypes.SELECT, transaction },
     );
     const balance = st.dueCents - Number(paid);
     if (session.amount_total !== balance || (session.currency ?? '').toUpperCase() !== st.currency) {
-      throw fail(422, 'amount_mismatch', `The payment (${session.amount_total} ${session.currency}) does not match the statement's balance (${balance} ${st.currency}).`, {
+      throw fail('invalid', 'amount_mismatch', `The payment (${session.amount_total} ${session.currency}) does not match the statement's balance (${balance} ${st.currency}).`, {
         amount: 'Does not match the balance.',
       });
     }
@@ -102,12 +102,12 @@ export async function recordPayment(
   statementId: string,
   input: { amountCents: number; method: 'cheque' | 'cash'; reference?: string | null; paidOn?: string | null },
 ) {
-  if (ctx.actor.role !== 'coordinator') throw fail(403, 'forbidden', 'Only a coordinator can record a payment.');
+  if (ctx.actor.role !== 'coordinator') throw fail('forbidden', 'forbidden', 'Only a coordinator can record a payment.');
   const sequelize = getSequelize();
   return sequelize.transaction(async (transaction) => {
     const s = await getStatement({ ...ctx, transaction }, statementId);
     if (input.amountCents > s.balanceCents) {
-      throw fail(422, 'over_balance', `That is more than the ${s.balanceCents} cents still owed.`, { amountCents: 'More than the balance.' });
+      throw fail('invalid', 'over_balance', `That is more than the ${s.balanceCents} cents still owed.`, { amountCents: 'More than the balance.' });
     }
     const [row] = await sequelize.query<{ id: string }>(
       `INSERT INTO payments (cooperative_id, settlement_id, household_id, amount_cents, method, reference, paid_at, recorded_by_id)
@@ -122,7 +122,7 @@ export async function recordPayment(
           method: input.method,
           reference: input.reference?.trim() || null,
           paidOn: input.paidOn ?? null,
-          actorId: ctx.actor.id,
+          actorId: ctx.actor.userId,
         },
         type: QueryTypes.SELECT,
         transaction,

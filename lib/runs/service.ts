@@ -1,23 +1,21 @@
 // Server code without the 'server-only' marker: the seed and the tests call it under plain Node.
 import { QueryTypes, type Transaction } from 'sequelize';
 import { db } from '@/db/models';
-import { ApiError } from '@/lib/api/errors';
-import type { SessionUser } from '@/lib/auth/session';
+import type { PersonCtx } from '@/lib/server/context';
+import { conflict, forbidden, invalid, notFound } from '@/lib/server/errors';
 import { recordChange } from '@/lib/events';
 import { allocateRun } from '@/lib/ledger/allocate-run';
 import { gradeClass, sugarKg, syrupLitres } from '@/lib/sugar';
 import type { DrawInput, FinishInput, FuelInput, RunInputsInput, StartRunInput } from './schema';
 import type { RunDto } from './types';
 
-export interface RunsContext {
-  actor: Pick<SessionUser, 'id' | 'role'>;
-  cooperativeId: string;
-}
+/** Who records (a signed-in person) and for which co-op. */
+export type RunsContext = PersonCtx;
 
 const STAFF = new Set(['coordinator', 'sugarmaker']);
 
 function mustBeStaff(ctx: RunsContext) {
-  if (!STAFF.has(ctx.actor.role)) throw new ApiError(403, 'Only a sugarmaker or the coordinator records runs.');
+  if (!STAFF.has(ctx.actor.role)) throw forbidden('Only a sugarmaker or the coordinator records runs.');
 }
 
 const pgCode = (err: unknown) => (err as { parent?: { code?: string } })?.parent?.code;
@@ -84,13 +82,13 @@ export async function listRuns(ctx: RunsContext, { seasonId }: { seasonId?: stri
 }
 
 export async function getRun(ctx: RunsContext, id: string, transaction?: Transaction): Promise<RunDto> {
-  if (!/^[0-9a-f-]{36}$/i.test(id)) throw new ApiError(404, 'That run was not found.');
+  if (!/^[0-9a-f-]{36}$/i.test(id)) throw notFound('That run');
   const rows = await db().sequelize.query<RunRow>(RUNS_SQL('AND r.id = :id'), {
     replacements: { coop: ctx.cooperativeId, id },
     type: QueryTypes.SELECT,
     transaction,
   });
-  if (!rows.length) throw new ApiError(404, 'That run was not found.');
+  if (!rows.length) throw notFound('That run');
   return toDto(rows[0]);
 }
 
@@ -98,16 +96,16 @@ export async function getRun(ctx: RunsContext, id: string, transaction?: Transac
 
 /** The run, locked for this transaction; refused unless it is still running. */
 async function runningRun(ctx: RunsContext, id: string, transaction: Transaction) {
-  if (!/^[0-9a-f-]{36}$/i.test(id)) throw new ApiError(404, 'That run was not found.');
+  if (!/^[0-9a-f-]{36}$/i.test(id)) throw notFound('That run');
   const run = await db().BoilRun.findOne({ where: { id, cooperativeId: ctx.cooperativeId }, transaction, lock: transaction.LOCK.UPDATE });
-  if (!run) throw new ApiError(404, 'That run was not found.');
-  if (run.status !== 'running') throw new ApiError(409, `Run ${run.lotCode} is finished; nothing more can be added to it.`);
+  if (!run) throw notFound('That run');
+  if (run.status !== 'running') throw conflict(`Run ${run.lotCode} is finished; nothing more can be added to it.`);
   return run;
 }
 
 function notFuture(at: string | undefined, field: string): Date {
   const when = at ? new Date(at) : new Date();
-  if (when.getTime() > Date.now() + 5 * 60_000) throw new ApiError(422, 'Some fields need another look.', { [field]: 'That time is in the future.' });
+  if (when.getTime() > Date.now() + 5 * 60_000) throw invalid('Some fields need another look.', { [field]: 'That time is in the future.' }, 'invalid_input');
   return when;
 }
 
@@ -120,16 +118,16 @@ export async function startRun(ctx: RunsContext, input: StartRunInput): Promise<
   try {
     const id = await m.sequelize.transaction(async (transaction) => {
       const evaporator = await m.Evaporator.findOne({ where: { id: input.evaporatorId, cooperativeId: ctx.cooperativeId }, transaction });
-      if (!evaporator) throw new ApiError(422, 'Some fields need another look.', { evaporatorId: 'Choose one of your co-op’s evaporators.' });
+      if (!evaporator) throw invalid('Some fields need another look.', { evaporatorId: 'Choose one of your co-op’s evaporators.' }, 'invalid_input');
       evaporatorName = evaporator.name;
       // The season row lock numbers runs one at a time.
       const season = await m.Season.findOne({ where: { cooperativeId: ctx.cooperativeId, status: 'open' }, transaction, lock: transaction.LOCK.UPDATE });
-      if (!season) throw new ApiError(422, 'No season is open: runs are recorded in an open season.', { evaporatorId: 'Open a season first.' });
+      if (!season) throw invalid('No season is open: runs are recorded in an open season.', { evaporatorId: 'Open a season first.' }, 'invalid_input');
       let slotId: string | null = null;
       if (input.slotId) {
         const slot = await m.BoilSlot.findOne({ where: { id: input.slotId, cooperativeId: ctx.cooperativeId }, transaction });
         if (!slot || slot.status === 'cancelled' || slot.evaporatorId !== evaporator.id) {
-          throw new ApiError(422, 'Some fields need another look.', { slotId: 'Choose a booked slot on this evaporator.' });
+          throw invalid('Some fields need another look.', { slotId: 'Choose a booked slot on this evaporator.' }, 'invalid_input');
         }
         slotId = slot.id;
       } else if (input.slotId === undefined) {
@@ -154,7 +152,7 @@ export async function startRun(ctx: RunsContext, input: StartRunInput): Promise<
           runNumber: next,
           lotCode: `${year}-${String(next).padStart(3, '0')}`,
           startedAt,
-          startedById: ctx.actor.id,
+          startedById: ctx.actor.userId,
           note: input.note || null,
         },
         { transaction },
@@ -166,9 +164,7 @@ export async function startRun(ctx: RunsContext, input: StartRunInput): Promise<
   } catch (err) {
     if (pgConstraint(err) === 'boil_runs_one_running_per_evaporator') {
       const running = await db().BoilRun.findOne({ where: { evaporatorId: input.evaporatorId, cooperativeId: ctx.cooperativeId, status: 'running' } });
-      throw new ApiError(409, `${evaporatorName} already has run ${running?.lotCode ?? ''} boiling. Finish it before starting another.`.replace('  ', ' '), undefined, {
-        code: 'run_already_running',
-      });
+      throw conflict(`${evaporatorName} already has run ${running?.lotCode ?? ''} boiling. Finish it before starting another.`.replace('  ', ' '), 'run_already_running');
     }
     throw err;
   }
@@ -188,15 +184,15 @@ export async function addInputs(ctx: RunsContext, runId: string, input: RunInput
           'SELECT status, volume_l - litres_boiled AS left FROM sap_deliveries WHERE id = :id AND cooperative_id = :coop',
           { replacements: { id: one.deliveryId, coop: ctx.cooperativeId }, type: QueryTypes.SELECT, transaction },
         );
-        if (!lot) throw new ApiError(422, 'Some fields need another look.', { deliveryId: 'That lot is not one of your co-op’s.' });
-        if (lot.status !== 'accepted') throw new ApiError(422, 'That lot was rejected; rejected sap is never boiled.', { deliveryId: 'Choose an accepted lot.' });
+        if (!lot) throw invalid('Some fields need another look.', { deliveryId: 'That lot is not one of your co-op’s.' }, 'invalid_input');
+        if (lot.status !== 'accepted') throw invalid('That lot was rejected; rejected sap is never boiled.', { deliveryId: 'Choose an accepted lot.' }, 'invalid_input');
         // Taking "all that is left" reads the remainder in the same statement that inserts it.
         await m.sequelize.query(
           `INSERT INTO run_inputs (cooperative_id, run_id, delivery_id, litres, taken_by_id)
            SELECT :coop, :run, d.id, COALESCE(:litres, d.volume_l - d.litres_boiled), :by
              FROM sap_deliveries d WHERE d.id = :id AND d.cooperative_id = :coop`,
           {
-            replacements: { coop: ctx.cooperativeId, run: run.id, id: one.deliveryId, litres: one.litres ?? null, by: ctx.actor.id },
+            replacements: { coop: ctx.cooperativeId, run: run.id, id: one.deliveryId, litres: one.litres ?? null, by: ctx.actor.userId },
             transaction,
           },
         );
@@ -211,15 +207,13 @@ export async function addInputs(ctx: RunsContext, runId: string, input: RunInput
         type: QueryTypes.SELECT,
       });
       const left = Math.max(0, lot?.left ?? 0);
-      throw new ApiError(
-        409,
-        left > 0 ? `Only ${+left.toFixed(3)} L of that lot are left to boil.` : 'That lot has already been boiled in full.',
-        { litres: 'More than the lot has left.' },
-        { code: 'lot_overdrawn', deliveryId: current, litresLeft: left },
-      );
+      throw conflict(left > 0 ? `Only ${+left.toFixed(3)} L of that lot are left to boil.` : 'That lot has already been boiled in full.', 'lot_overdrawn', {
+        fields: { litres: 'More than the lot has left.' },
+        details: { deliveryId: current, litresLeft: left },
+      });
     }
     if (c === 'sap_deliveries_boiled_only_accepted') {
-      throw new ApiError(422, 'That lot was rejected; rejected sap is never boiled.', { deliveryId: 'Choose an accepted lot.' });
+      throw invalid('That lot was rejected; rejected sap is never boiled.', { deliveryId: 'Choose an accepted lot.' }, 'invalid_input');
     }
     throw err;
   }
@@ -234,14 +228,14 @@ export async function addDraw(ctx: RunsContext, runId: string, input: DrawInput)
   if (input.transmittancePct != null) {
     const measured = gradeClass(input.transmittancePct);
     if (klass && klass !== measured) {
-      throw new ApiError(422, 'Some fields need another look.', { gradeClass: `${input.transmittancePct} %Tc is ${measured}, not ${klass}.` });
+      throw invalid('Some fields need another look.', { gradeClass: `${input.transmittancePct} %Tc is ${measured}, not ${klass}.` }, 'invalid_input');
     }
     klass = measured;
   }
   const drawnAt = notFuture(input.drawnAt, 'drawnAt');
   await m.sequelize.transaction(async (transaction) => {
     const run = await runningRun(ctx, runId, transaction);
-    if (drawnAt < run.startedAt) throw new ApiError(422, 'Some fields need another look.', { drawnAt: 'Before the run started.' });
+    if (drawnAt < run.startedAt) throw invalid('Some fields need another look.', { drawnAt: 'Before the run started.' }, 'invalid_input');
     const draw = await m.SyrupDraw.create(
       {
         cooperativeId: ctx.cooperativeId,
@@ -252,7 +246,7 @@ export async function addDraw(ctx: RunsContext, runId: string, input: DrawInput)
         transmittancePct: input.transmittancePct ?? null,
         gradeClass: klass!,
         temperatureC: input.temperatureC ?? null,
-        recordedById: ctx.actor.id,
+        recordedById: ctx.actor.userId,
       },
       { transaction },
     );
@@ -274,7 +268,7 @@ export async function addFuel(ctx: RunsContext, runId: string, input: FuelInput)
     const kind = input.kind ?? evaporator!.fuelKind;
     const unit = input.unit ?? (kind === 'wood' ? 'cord' : 'litre');
     if ((kind === 'wood' && unit !== 'cord') || ((kind === 'oil' || kind === 'propane') && unit !== 'litre')) {
-      throw new ApiError(422, 'Some fields need another look.', { unit: kind === 'wood' ? 'Wood is counted in cords.' : `${kind} is counted in litres.` });
+      throw invalid('Some fields need another look.', { unit: kind === 'wood' ? 'Wood is counted in cords.' : `${kind} is counted in litres.` }, 'invalid_input');
     }
     const fuel = await m.FuelUse.create(
       {
@@ -284,7 +278,7 @@ export async function addFuel(ctx: RunsContext, runId: string, input: FuelInput)
         quantity: input.quantity,
         unit,
         costCents: Math.round(input.quantity * season!.fuelPriceCents),
-        recordedById: ctx.actor.id,
+        recordedById: ctx.actor.userId,
       },
       { transaction },
     );
@@ -300,12 +294,12 @@ export async function finishRun(ctx: RunsContext, runId: string, input: FinishIn
   const finishedAt = notFuture(input.finishedAt, 'finishedAt');
   await m.sequelize.transaction(async (transaction) => {
     const run = await runningRun(ctx, runId, transaction);
-    if (finishedAt < run.startedAt) throw new ApiError(422, 'Some fields need another look.', { finishedAt: 'Before the run started.' });
+    if (finishedAt < run.startedAt) throw invalid('Some fields need another look.', { finishedAt: 'Before the run started.' }, 'invalid_input');
     const inputs = await m.RunInput.count({ where: { runId: run.id }, transaction });
-    if (!inputs) throw new ApiError(422, 'Take sap from the queue into the run before finishing it.', { runId: 'No sap went into this run.' });
-    await run.update({ status: 'finished', finishedAt, finishedById: ctx.actor.id }, { transaction });
+    if (!inputs) throw invalid('Take sap from the queue into the run before finishing it.', { runId: 'No sap went into this run.' }, 'invalid_input');
+    await run.update({ status: 'finished', finishedAt, finishedById: ctx.actor.userId }, { transaction });
     // The season ledger's per-run allocation, in this same transaction.
-    await allocateRun({ cooperativeId: ctx.cooperativeId, transaction, actor: ctx.actor }, run.id);
+    await allocateRun({ cooperativeId: ctx.cooperativeId, transaction, actorId: ctx.actor.userId }, run.id);
     await recordChange({ cooperativeId: ctx.cooperativeId, transaction }, { type: 'run.finished', runId: run.id });
   });
   return getRun(ctx, runId);

@@ -82,7 +82,7 @@ export default async function HomePage() {
       </div>
       {user.role === 'member' && (
         <TodayLedgerCard
-          user={{ id: user.userId, role: user.role, householdId: user.householdId, cooperativeId: ctx.cooperativeId }}
+          ctx={ctx}
           openSeasonId={open?.id ?? null}
           settledSeasonId={seasons.find((s) => s.status === 'settled')?.id ?? null}
         />

@@ -1,8 +1,8 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { requireUser } from '@/lib/auth/session';
+import { requireContext } from '@/lib/server/context';
 import { listSeasons } from '@/lib/coop/service';
-import { contextOf, getLedger } from '@/lib/ledger/service';
+import { getLedger } from '@/lib/ledger/service';
 import { formatShare, formatSyrup, formatSyrupClasses } from '@/lib/ledger/format';
 import { formatBrix, formatMass, formatMoney, formatVolume, KG_PER_POUND } from '@/lib/sugar';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
@@ -16,12 +16,13 @@ import { SugarChartLazy } from '@/components/ledger/sugar-chart-lazy';
 export const metadata: Metadata = { title: 'Season ledger' };
 
 export default async function LedgerPage({ searchParams }: { searchParams: Promise<{ season?: string }> }) {
-  const user = await requireUser({ onFail: 'redirect' });
+  const ctx = await requireContext({ onFail: 'redirect' });
+  const user = ctx.actor;
   const { season: wanted } = await searchParams;
-  const seasons = await listSeasons({ cooperativeId: user.cooperativeId });
+  const seasons = await listSeasons(ctx);
   const season = seasons.find((s) => s.id === wanted) ?? seasons.find((s) => s.status === 'open') ?? seasons[0];
   if (!season) return <p>No season yet.</p>;
-  const ledger = await getLedger(contextOf(user), season.id);
+  const ledger = await getLedger(ctx, season.id);
   const u = ledger.unitSystem;
   const money = (c: number) => formatMoney(c, ledger.currency);
   const t = ledger.totals;

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import { requireUser } from '@/lib/auth/session';
+import { requireContext } from '@/lib/server/context';
 import { getCooperative } from '@/lib/coop/service';
 import { currentSnapshot } from '@/lib/queue/service';
 import { QueueBoard } from '@/components/queue/queue-board';
@@ -7,8 +7,9 @@ import { QueueBoard } from '@/components/queue/queue-board';
 export const metadata: Metadata = { title: 'Boil queue' };
 
 export default async function QueuePage() {
-  const user = await requireUser({ onFail: 'redirect' });
-  const [coop, cached] = await Promise.all([getCooperative({ cooperativeId: user.cooperativeId }), currentSnapshot(user.cooperativeId)]);
+  const ctx = await requireContext({ onFail: 'redirect' });
+  const user = ctx.actor;
+  const [coop, cached] = await Promise.all([getCooperative(ctx), currentSnapshot(ctx.cooperativeId)]);
   return (
     <div className="flex flex-col gap-4">
       <div>

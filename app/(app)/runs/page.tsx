@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import { requireRole } from '@/lib/auth/session';
+import { requireContext } from '@/lib/server/context';
 import { getCooperative, listEvaporators, listSeasons } from '@/lib/coop/service';
 import { currentSnapshot } from '@/lib/queue/service';
 import { listRuns } from '@/lib/runs/service';
@@ -12,13 +12,12 @@ import { BoilingCautions } from '@/components/runs/boiling-cautions';
 export const metadata: Metadata = { title: 'Runs' };
 
 export default async function RunsPage() {
-  const user = await requireRole(['sugarmaker', 'coordinator'], { onFail: 'redirect' });
-  const ctx = { actor: user, cooperativeId: user.cooperativeId };
+  const ctx = await requireContext({ roles: ['sugarmaker', 'coordinator'], onFail: 'redirect' });
   const [coop, seasons, evaporators, cached] = await Promise.all([
     getCooperative(ctx),
     listSeasons(ctx),
     listEvaporators(ctx),
-    currentSnapshot(user.cooperativeId),
+    currentSnapshot(ctx.cooperativeId),
   ]);
   const open = seasons.find((s) => s.status === 'open');
   const runs = open ? await listRuns(ctx, { seasonId: open.id }) : [];

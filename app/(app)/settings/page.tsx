@@ -12,7 +12,7 @@ export default async function SettingsPage() {
   const ctx = await requireContext({ roles: ['coordinator'], onFail: 'redirect' });
   const [settings, displayLinks] = await Promise.all([
     getSettings(ctx),
-    listDisplayLinks({ actor: { id: ctx.actor.userId, role: ctx.actor.role }, cooperativeId: ctx.cooperativeId }),
+    listDisplayLinks(ctx),
   ]);
   return (
     <div className="flex flex-col gap-6">

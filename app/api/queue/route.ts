@@ -1,11 +1,10 @@
-import { requireUser } from '@/lib/auth/session';
-import { ApiError, route } from '@/lib/api/errors';
+import { route } from '@/lib/server/route';
+import { notFound } from '@/lib/server/errors';
 import { currentSnapshot } from '@/lib/queue/service';
 
 /** The Boil queue; the same JSON the `queue` socket event carries. */
-export const GET = route(async () => {
-  const user = await requireUser();
-  const cached = await currentSnapshot(user.cooperativeId);
-  if (!cached) throw new ApiError(404, 'Your cooperative was not found.');
+export const GET = route(async ({ ctx }) => {
+  const cached = await currentSnapshot(ctx.cooperativeId);
+  if (!cached) throw notFound('Your cooperative');
   return new Response(cached.json, { headers: { 'content-type': 'application/json', 'cache-control': 'no-store' } });
 });

@@ -1,8 +1,8 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
-import { requireUser } from '@/lib/auth/session';
-import { contextOf, getStatement } from '@/lib/ledger/service';
+import { requireContext } from '@/lib/server/context';
+import { getStatement } from '@/lib/ledger/service';
 import { statementLines } from '@/lib/ledger/format';
 import { formatMoney } from '@/lib/sugar';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
@@ -15,12 +15,13 @@ import type { Statement } from '@/lib/ledger/types';
 export const metadata: Metadata = { title: 'Statement' };
 
 export default async function StatementPage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<{ paid?: string }> }) {
-  const user = await requireUser({ onFail: 'redirect' });
+  const ctx = await requireContext({ onFail: 'redirect' });
+  const user = ctx.actor;
   const { id } = await params;
   const { paid: justPaid } = await searchParams;
   let s: Statement;
   try {
-    s = await getStatement(contextOf(user), id);
+    s = await getStatement(ctx, id);
   } catch {
     notFound();
   }

@@ -1,7 +1,6 @@
 import { NextResponse } from 'next/server';
-import { optionalUser } from '@/lib/auth/session';
-import { toErrorResponse } from '@/lib/api/errors';
-import { contextOf } from '@/lib/ledger/service';
+import { optionalContext } from '@/lib/server/context';
+import { errorResponse } from '@/lib/server/http';
 import { startCheckout } from '@/lib/payments/service';
 
 /**
@@ -11,17 +10,17 @@ import { startCheckout } from '@/lib/payments/service';
 export async function GET(req: Request, { params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const url = new URL(req.url);
-  const user = await optionalUser();
-  if (!user) {
+  const ctx = await optionalContext(req);
+  if (!ctx) {
     const signIn = new URL('/sign-in', url);
     signIn.searchParams.set('callbackUrl', `/statements/${id}/pay`);
     return NextResponse.redirect(signIn, 303);
   }
   try {
-    const { url: checkout } = await startCheckout(contextOf(user), id);
+    const { url: checkout } = await startCheckout(ctx, id);
     return NextResponse.redirect(checkout, 303);
   } catch (err) {
-    const res = toErrorResponse(err);
+    const res = errorResponse(err);
     if (res.status === 409) return NextResponse.redirect(new URL(`/statements/${id}`, url), 303);
     return res;
   }

@@ -1,14 +1,8 @@
-import { NextResponse } from 'next/server';
-import { requireRole } from '@/lib/auth/session';
-import { readJson, route } from '@/lib/api/errors';
+import { json, readJson } from '@/lib/server/http';
+import { route } from '@/lib/server/route';
 import { addInputs } from '@/lib/runs/service';
 import { RunInputsInput } from '@/lib/runs/schema';
 
-type Ctx = { params: Promise<{ id: string }> };
-
-export const POST = route<Ctx>(async (req, { params }) => {
-  const user = await requireRole(['sugarmaker', 'coordinator']);
-  const { id } = await params;
-  const input = RunInputsInput.parse(await readJson(req));
-  return NextResponse.json(await addInputs({ actor: user, cooperativeId: user.cooperativeId }, id, input), { status: 201 });
+export const POST = route<{ id: string }>(async ({ ctx, req, params }) => json(await addInputs(ctx, params.id, await readJson(req, RunInputsInput)), 201), {
+  roles: ['sugarmaker', 'coordinator'],
 });

@@ -1,18 +1,14 @@
-import { NextResponse } from 'next/server';
-import { requireUser } from '@/lib/auth/session';
-import { route } from '@/lib/api/errors';
-import { contextOf, getLedger } from '@/lib/ledger/service';
+import { route } from '@/lib/server/route';
+import { getLedger } from '@/lib/ledger/service';
 import { LedgerFormat } from '@/lib/ledger/schema';
 import { ledgerCsv } from '@/lib/ledger/csv';
 import { ledgerPdf } from '@/lib/ledger/pdf';
 import { getCooperative } from '@/lib/coop/service';
 
 /** The Season ledger: JSON (default), `?format=csv` or `?format=pdf`. A member sees its own row. */
-export const GET = route(async (req, { params }: { params: Promise<{ id: string }> }) => {
-  const user = await requireUser();
-  const { id } = await params;
-  const format = LedgerFormat.parse(new URL(req.url).searchParams.get('format') ?? undefined);
-  const ledger = await getLedger(contextOf(user), id);
+export const GET = route<{ id: string }>(async ({ ctx, params, url }) => {
+  const format = LedgerFormat.parse(url.searchParams.get('format') ?? undefined);
+  const ledger = await getLedger(ctx, params.id);
   const base = `ledger-${ledger.season.label.replace(/[^A-Za-z0-9]+/g, '-').toLowerCase()}`;
   if (format === 'csv') {
     return new Response(ledgerCsv(ledger), {
@@ -20,11 +16,11 @@ export const GET = route(async (req, { params }: { params: Promise<{ id: string 
     });
   }
   if (format === 'pdf') {
-    const coop = await getCooperative({ cooperativeId: user.cooperativeId });
+    const coop = await getCooperative({ cooperativeId: ctx.cooperativeId });
     const pdf = await ledgerPdf(ledger, coop.name);
     return new Response(new Uint8Array(pdf), {
       headers: { 'content-type': 'application/pdf', 'content-disposition': `attachment; filename="${base}.pdf"` },
     });
   }
-  return NextResponse.json(ledger);
+  return ledger;
 });
