@@ -1,10 +1,10 @@
 import { z } from 'zod';
 import { NewPassword } from '@/lib/account/schema';
 import { ROLES } from '@/lib/roles';
-import { line } from '@/lib/validation/fields';
+import { name } from '@/lib/validation/fields';
 
 export const HouseholdInput = z.object({
-  name: line({ min: 1, max: 120, label: 'The household name' }),
+  name: name({ min: 1, max: 120, label: 'The household name' }),
 });
 export type HouseholdInput = z.infer<typeof HouseholdInput>;
 
@@ -12,7 +12,7 @@ const roleEnum = z.enum(ROLES, { message: 'Choose coordinator, sugarmaker or mem
 
 export const PersonInput = z
   .object({
-    name: line({ min: 1, max: 120, label: 'The name' }),
+    name: name({ min: 1, max: 120, label: 'The name' }),
     email: z.string().trim().toLowerCase().email('Enter an e-mail address like name@example.org.'),
     role: roleEnum,
     householdId: z.string().uuid('Choose a household.').nullish(),

@@ -39,6 +39,10 @@ export const text = ({ min = 0, max, label = 'This' }: { min?: number; max: numb
 export const line = (opts: { min?: number; max: number; label?: string }) =>
   text(opts).refine((s) => !/[\r\n]/.test(s), `${opts.label ?? 'This'} must be one line.`);
 
+/** A name: one line holding at least one letter or digit (a lone "\\" or "-" names nobody). */
+export const name = (opts: { min?: number; max: number; label?: string }) =>
+  line(opts).refine((s) => /[\p{L}\p{N}]/u.test(s), `${opts.label ?? 'The name'} needs at least one letter or digit.`);
+
 /** Years the calendar deals with; PostgreSQL and people both choke on year 0. */
 const MIN_YEAR = 1900;
 const MAX_YEAR = 2200;
