@@ -12,7 +12,7 @@ import type { DateSelectArg, DateSpanApi, DatesSetArg, EventClickArg, EventConte
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { toast } from '@/components/ui/toaster';
-import { ApiClientError, apiSend, fetcher } from '@/lib/client/api';
+import { ApiClientError, fetcher } from '@/lib/client/api';
 import type { SlotDto } from '@/lib/slots/types';
 import { formatSlotRange } from '@/lib/time';
 import { cn } from '@/lib/utils';
@@ -22,6 +22,7 @@ import { PLANNING_KEY, PlanningStrip } from './planning-strip';
 import { SlotDialog, type SlotChange } from './slot-dialog';
 import { closingOn, defaultEnd, defaultStart } from './slot-time';
 import { useLiveSlots, type LiveStatus } from './use-live-slots';
+import { useSlotMutation } from './use-slot-mutation';
 import styles from './calendar.module.css';
 
 type ViewName = 'dayGridMonth' | 'timeGridWeek' | 'timeGridDay';
@@ -66,6 +67,7 @@ export function BoilCalendar({ setup }: { setup: CalendarSetup }) {
     void mutateAny(PLANNING_KEY);
   }, [mutateAny]);
   const live = useLiveSlots(refreshAll);
+  const mutateSlot = useSlotMutation(slots);
 
   const canBook = !!setup.season && setup.evaporators.length > 0 && (setup.user.staff || !!setup.user.householdId);
   const isMine = useCallback((s: SlotDto) => !setup.user.staff && s.householdId === setup.user.householdId, [setup.user]);
@@ -174,7 +176,7 @@ export function BoilCalendar({ setup }: { setup: CalendarSetup }) {
   }
 
   async function book(input: NewSlot, householdName: string) {
-    const temp: SlotDto = {
+    const placeholder: SlotDto = {
       id: `pending-${Date.now()}-${++pendingCount}`,
       evaporatorId: input.evaporatorId,
       householdId: input.householdId ?? setup.user.householdId ?? '',
@@ -187,26 +189,12 @@ export function BoilCalendar({ setup }: { setup: CalendarSetup }) {
       note: input.note,
       editable: false,
     };
-    let created: SlotDto | null = null;
-    await slots.mutate(
-      async (current) => {
-        created = await apiSend<SlotDto>('POST', '/api/slots', input);
-        return [...(current ?? []).filter((s) => s.id !== created!.id), created];
-      },
-      {
-        optimisticData: (current) => [...(current ?? []), temp],
-        rollbackOnError: true,
-        populateCache: true,
-        revalidate: false,
-      },
-    );
-    const slot = created as SlotDto | null;
+    const slot = await mutateSlot({ kind: 'book', input, placeholder });
     if (!slot) return;
     closeBooking();
     toast.success(`Booked for the ${slot.householdName} household: ${formatSlotRange(slot.startsAt, slot.endsAt, zone)}.`, {
       description: 'A confirmation e-mail with a calendar file is on its way.',
     });
-    void mutateAny(PLANNING_KEY);
     const calendar = api();
     const startsAt = new Date(slot.startsAt);
     if (calendar && (startsAt < calendar.view.activeStart || startsAt >= calendar.view.activeEnd)) calendar.gotoDate(startsAt);
@@ -214,42 +202,17 @@ export function BoilCalendar({ setup }: { setup: CalendarSetup }) {
 
   async function cancel(slot: SlotDto) {
     try {
-      await slots.mutate(
-        async (current) => {
-          await apiSend<SlotDto>('DELETE', `/api/slots/${slot.id}`);
-          return (current ?? []).filter((s) => s.id !== slot.id);
-        },
-        {
-          optimisticData: (current) => (current ?? []).filter((s) => s.id !== slot.id),
-          rollbackOnError: true,
-          populateCache: true,
-          revalidate: false,
-        },
-      );
+      await mutateSlot({ kind: 'cancel', slot });
     } catch (err) {
       toast.error(err instanceof ApiClientError ? err.message : 'The slot could not be cancelled.');
       throw err;
     }
     setSelected(null);
     toast.success(`Cancelled the ${slot.householdName} household’s slot; ${formatSlotRange(slot.startsAt, slot.endsAt, zone)} is free again.`);
-    void mutateAny(PLANNING_KEY);
   }
 
   async function change(slot: SlotDto, patch: SlotChange) {
-    let saved: SlotDto | null = null;
-    await slots.mutate(
-      async (current) => {
-        saved = await apiSend<SlotDto>('PATCH', `/api/slots/${slot.id}`, patch);
-        return (current ?? []).map((s) => (s.id === slot.id ? saved! : s));
-      },
-      {
-        optimisticData: (current) => (current ?? []).map((s) => (s.id === slot.id ? { ...s, ...patch } : s)),
-        rollbackOnError: true,
-        populateCache: true,
-        revalidate: false,
-      },
-    );
-    const fresh = saved as SlotDto | null;
+    const fresh = await mutateSlot({ kind: 'change', slot, patch });
     if (fresh) setSelected(fresh);
     toast.success('Saved the crew and note.');
   }
@@ -260,22 +223,10 @@ export function BoilCalendar({ setup }: { setup: CalendarSetup }) {
     const startsAt = DateTime.fromJSDate(arg.event.start!, { zone }).toISO()!;
     const endsAt = DateTime.fromJSDate(arg.event.end!, { zone }).toISO()!;
     try {
-      await slots.mutate(
-        async (current) => {
-          const saved = await apiSend<SlotDto>('PATCH', `/api/slots/${slot.id}`, { startsAt, endsAt });
-          return (current ?? []).map((s) => (s.id === slot.id ? saved : s));
-        },
-        {
-          optimisticData: (current) => (current ?? []).map((s) => (s.id === slot.id ? { ...s, startsAt, endsAt } : s)),
-          rollbackOnError: true,
-          populateCache: true,
-          revalidate: false,
-        },
-      );
+      await mutateSlot({ kind: 'move', slot, startsAt, endsAt });
       toast.success(`Moved the ${slot.householdName} household’s slot to ${formatSlotRange(startsAt, endsAt, zone)}.`, {
         description: 'The household gets an e-mail with the new time.',
       });
-      void mutateAny(PLANNING_KEY);
     } catch (err) {
       arg.revert();
       toast.error(err instanceof ApiClientError ? err.message : 'The slot could not be moved.');
