@@ -3,9 +3,10 @@
 import useSWR from 'swr';
 import { Alert } from '@/components/ui/alert';
 import { fetcher } from '@/lib/client/api';
-import { formatVolume, type UnitSystem } from '@/lib/sugar/units';
+import { type UnitSystem } from '@/lib/sugar/units';
 import type { PlanningDto } from '@/lib/planning/types';
 import { formatHours, formatMoment, hourCount } from './slot-time';
+import { showVolume } from '@/lib/figures';
 
 export const PLANNING_KEY = '/api/planning';
 
@@ -41,7 +42,7 @@ export function PlanningStrip({ timeZone, unitSystem }: PlanningStripProps) {
       ) : (
         <>
           <dl className="grid grid-cols-1 gap-px overflow-hidden rounded-xl border border-birch-line bg-birch-line sm:grid-cols-3">
-            <Figure label="Sap waiting" value={formatVolume(data.waitingL, unitSystem)} />
+            <Figure label="Sap waiting" value={showVolume(data.waitingL, unitSystem)} />
             <Figure label="Evaporator hours needed" value={formatHours(data.hoursNeeded)} />
             <Figure
               label={`Booked before ${formatMoment(data.oldestDeadline, timeZone)}`}

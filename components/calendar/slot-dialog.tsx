@@ -9,9 +9,10 @@ import { Dialog, DialogContent } from '@/components/ui/dialog';
 import { Field, Input, Textarea, fieldA11y } from '@/components/ui/input';
 import { ApiClientError } from '@/lib/client/api';
 import type { SlotDto } from '@/lib/slots/types';
-import { formatVolume } from '@/lib/sugar/units';
+
 import { formatSlotRange } from '@/lib/time';
 import type { CalendarSetup } from './calendar-types';
+import { showVolume } from '@/lib/figures';
 
 export interface SlotChange {
   crew: string[];
@@ -94,7 +95,7 @@ function SlotDetails({ setup, slot, onCancel, onChange }: Omit<SlotDialogProps, 
             <dt className="font-semibold">Crew</dt>
             <dd>{slot.crew.length ? slot.crew.join(', ') : <span className="text-slate-muted">Not named yet</span>}</dd>
             <dt className="font-semibold">Expected sap</dt>
-            <dd>{slot.expectedSapL !== null ? formatVolume(slot.expectedSapL, setup.unitSystem) : <span className="text-slate-muted">Not given</span>}</dd>
+            <dd>{slot.expectedSapL !== null ? showVolume(slot.expectedSapL, setup.unitSystem) : <span className="text-slate-muted">Not given</span>}</dd>
             <dt className="font-semibold">Note</dt>
             <dd className="whitespace-pre-line break-words">{slot.note ?? <span className="text-slate-muted">None</span>}</dd>
           </>

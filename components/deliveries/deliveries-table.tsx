@@ -200,7 +200,7 @@ export function DeliveriesTable({ units, timeZone, seasonId, households, canCorr
 
       {error ? <p role="alert" className="font-semibold text-ember">The drop-offs could not be loaded: {String(error.message ?? error)}</p> : null}
 
-      <Table label="Drop-offs" aria-busy={isLoading || undefined} data-testid="deliveries-table">
+      <Table label="Drop-offs" stack aria-busy={isLoading || undefined} data-testid="deliveries-table">
         <THead>
           {table.getHeaderGroups().map((hg) => (
             <TR key={hg.id}>
@@ -234,7 +234,11 @@ export function DeliveriesTable({ units, timeZone, seasonId, households, canCorr
             drawn.map((row) => (
               <TR key={row.id} data-testid="lot-row" data-lot-id={row.id}>
                 {row.getVisibleCells().map((cell) => (
-                  <TD key={cell.id} numeric={(cell.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric}>
+                  <TD
+                    key={cell.id}
+                    numeric={(cell.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric}
+                    label={typeof cell.column.columnDef.header === 'string' ? cell.column.columnDef.header : undefined}
+                  >
                     {flexRender(cell.column.columnDef.cell, cell.getContext())}
                   </TD>
                 ))}
@@ -249,9 +253,9 @@ export function DeliveriesTable({ units, timeZone, seasonId, households, canCorr
               {totals.rejected ? <span className="block font-normal text-slate-muted">{totals.rejected} rejected, not counted</span> : null}
             </TH>
             {households ? <TD /> : null}
-            <TD numeric data-testid="total-volume">{vol(totals.litres, units)}</TD>
-            <TD numeric data-testid="total-brix">{totals.meanBrix === null ? '—' : fmtBrix(totals.meanBrix)}</TD>
-            <TD numeric data-testid="total-sugar">{mass(totals.sugar, units)}</TD>
+            <TD numeric label={`Volume (${volumeUnit(units)})`} data-testid="total-volume">{vol(totals.litres, units)}</TD>
+            <TD numeric label="Mean °Brix" data-testid="total-brix">{totals.meanBrix === null ? '—' : fmtBrix(totals.meanBrix)}</TD>
+            <TD numeric label={`Sugar (${massUnit(units)})`} data-testid="total-sugar">{mass(totals.sugar, units)}</TD>
             <TD colSpan={2} className="text-sm font-normal text-slate-muted">
               Accepted lots; °Brix weighted by volume
             </TD>

@@ -62,7 +62,7 @@ export function DeliveryDetails({ id, onClose, units, timeZone, households, canC
 
 function show(field: string, value: unknown, units: UnitSystem, households: { id: string; name: string }[] | null): string {
   if (value === null || value === undefined || value === '') return '—';
-  if (field === 'volumeL' && typeof value === 'number') return vol(value, units, 2);
+  if (field === 'volumeL' && typeof value === 'number') return vol(value, units);
   if (field === 'brix' && typeof value === 'number') return fmtBrix(value);
   if (field === 'sapTempC' && typeof value === 'number') return formatTemperature(value, units);
   if (field === 'householdId') return households?.find((h) => h.id === value)?.name ?? 'another household';
@@ -90,7 +90,7 @@ function LotBody({ lot, units, timeZone, households }: { lot: DeliveryDetailDto;
       ) : null}
       <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1.5">
         <dt className="text-slate-muted">Volume</dt>
-        <dd className="num">{vol(lot.volumeL, units, 2)}</dd>
+        <dd className="num">{vol(lot.volumeL, units)}</dd>
         <dt className="text-slate-muted">Sugar content</dt>
         <dd className="num">{fmtBrix(lot.brix)}</dd>
         <dt className="text-slate-muted">Sugar</dt>

@@ -1,4 +1,5 @@
-import { formatBrix, formatMass, formatVolume, litresToGallons, type UnitSystem } from '@/lib/sugar';
+import { formatVolume, litresToGallons, type UnitSystem } from '@/lib/sugar';
+import { showBrix, showMass, showVolume } from '@/lib/figures';
 
 const dateTimeFormats = new Map<string, Intl.DateTimeFormat>();
 
@@ -32,9 +33,9 @@ export const massUnit = (units: UnitSystem) => (units === 'us' ? 'lb' : 'kg');
 export const tempUnit = (units: UnitSystem) => (units === 'us' ? '°F' : '°C');
 
 /** Safe formatters: a figure out of range shows a dash instead of throwing in a render. */
-export const vol = (litres: number, units: UnitSystem, digits?: number) => safe(() => formatVolume(litres, units, { digits: digits ?? (units === 'us' ? 1 : 0) }));
-export const mass = (kg: number, units: UnitSystem) => safe(() => formatMass(kg, units));
-export const brix = (b: number) => safe(() => formatBrix(b));
+export const vol = (litres: number, units: UnitSystem, digits?: number) => safe(() => (digits === undefined ? showVolume(litres, units) : formatVolume(litres, units, { digits })));
+export const mass = (kg: number, units: UnitSystem) => safe(() => showMass(kg, units));
+export const brix = (b: number) => safe(() => showBrix(b));
 /** A volume in the co-op's unit as a plain number, for CSV. */
 export const volumeNumber = (litres: number, units: UnitSystem) => (units === 'us' ? litresToGallons(litres) : litres);
 

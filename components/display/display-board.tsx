@@ -3,8 +3,9 @@
 import { clock, duration, STATE_LABEL } from '@/components/queue/format';
 import { useLiveQueue } from '@/components/queue/use-live-queue';
 import type { QueueSnapshot } from '@/lib/queue/types';
-import { GRADE_CLASS_INFO, formatBrix, formatVolume, type UnitSystem } from '@/lib/sugar';
+import { GRADE_CLASS_INFO, formatBrix, type UnitSystem } from '@/lib/sugar';
 import { cn } from '@/lib/utils';
+import { showSyrup, showVolume } from '@/lib/figures';
 
 interface DisplayBoardProps {
   token: string;
@@ -35,8 +36,8 @@ export function DisplayBoard({ token, initial, coopName, unitSystem, timeZone }:
         </h2>
         {run ? (
           <dl className="mt-4 grid grid-cols-2 gap-4 lg:grid-cols-4">
-            <Big label="Syrup drawn" value={formatVolume(run.syrupDrawnL, unitSystem)} testId="display-run-syrup" />
-            <Big label="Expected from the sap in" value={formatVolume(run.syrupExpectedL, unitSystem)} />
+            <Big label="Syrup drawn" value={showSyrup(run.syrupDrawnL, unitSystem)} testId="display-run-syrup" />
+            <Big label="Expected from the sap in" value={showSyrup(run.syrupExpectedL, unitSystem)} />
             <Big label="Sap to boil" value={duration(run.hoursLeft)} />
             <Big
               label="Last draw-off"
@@ -47,8 +48,8 @@ export function DisplayBoard({ token, initial, coopName, unitSystem, timeZone }:
       </section>
 
       <dl className="grid grid-cols-2 gap-4 lg:grid-cols-4">
-        <Big label="Syrup drawn today" value={formatVolume(totals.syrupDrawnTodayL, unitSystem)} testId="display-today" />
-        <Big label="Sap waiting" value={formatVolume(totals.litresWaiting, unitSystem)} />
+        <Big label="Syrup drawn today" value={showSyrup(totals.syrupDrawnTodayL, unitSystem)} testId="display-today" />
+        <Big label="Sap waiting" value={showVolume(totals.litresWaiting, unitSystem)} />
         <Big label="Boiling needed" value={duration(totals.hoursNeeded)} />
         <Big label="Booked ahead" value={duration(totals.hoursBookedAhead)} />
       </dl>
@@ -73,7 +74,7 @@ export function DisplayBoard({ token, initial, coopName, unitSystem, timeZone }:
             >
               <span className="font-bold text-night-muted">{i + 1}</span>
               <span>
-                <span className="font-bold">{l.householdName}</span> {formatVolume(l.litresLeft, unitSystem)} · {formatBrix(l.brix)}
+                <span className="font-bold">{l.householdName}</span> {showVolume(l.litresLeft, unitSystem)} · {formatBrix(l.brix)}
                 <span className={cn('block text-lg lg:text-2xl', l.state === 'urgent' || l.state === 'expired' ? 'text-ember-glow' : 'text-night-muted')}>
                   {STATE_LABEL[l.state]}
                   {l.spoilsBeforeTurn ? ' · spoils before its turn' : ''} · deadline {clock(l.deadline, timeZone)}

@@ -36,7 +36,7 @@ export function HouseholdsManager() {
           {!households.data ? (
             <p className="text-slate-muted">Loading households…</p>
           ) : (
-            <Table label="Households and their people">
+            <Table label="Households and their people" stack>
               <THead>
                 <TR>
                   <TH>Household</TH>
@@ -48,7 +48,7 @@ export function HouseholdsManager() {
                 {households.data.map((h) =>
                   h.people.length === 0 ? (
                     <TR key={h.id}>
-                      <TD className="font-semibold">{h.name}</TD>
+                      <TD label="Household" className="font-semibold">{h.name}</TD>
                       <TD colSpan={2} className="text-slate-muted">
                         No one yet
                       </TD>
@@ -106,14 +106,14 @@ function PersonRow({ person, household, households, onChanged }: PersonRowProps)
 
   return (
     <TR>
-      <TD className="font-semibold">{household}</TD>
-      <TD>
+      <TD label="Household" className="font-semibold">{household}</TD>
+      <TD label="Person" className="stack-wide">
         <span className="block">
           {person.name} {person.invited ? <Badge variant="neutral">Invited</Badge> : null}
         </span>
         <span className="block text-sm text-slate-muted">{person.email}</span>
       </TD>
-      <TD>
+      <TD label="Role" className="stack-wide">
         <div className="flex min-w-40 flex-col gap-2">
           <label htmlFor={selectId} className="sr-only">
             Role of {person.name}

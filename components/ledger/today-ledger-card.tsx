@@ -2,9 +2,10 @@ import Link from 'next/link';
 import { getLedger, getStatement, statementIdFor } from '@/lib/ledger/service';
 import type { PersonCtx } from '@/lib/server/context';
 import { formatShare, formatSyrup } from '@/lib/ledger/format';
-import { formatMass, formatMoney } from '@/lib/sugar';
+import { formatMoney } from '@/lib/sugar';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { buttonVariants } from '@/components/ui/button';
+import { showMass } from '@/lib/figures';
 
 export interface TodayLedgerCardProps {
   /** The signed-in member's request context. */
@@ -33,7 +34,7 @@ export async function TodayLedgerCard({ ctx, openSeasonId, settledSeasonId }: To
         {own ? (
           <dl className="grid grid-cols-[1fr_auto] gap-x-4 gap-y-1" data-testid="today-ledger">
             <dt>Sugar delivered</dt>
-            <dd className="num text-right">{formatMass(own.sugarDeliveredKg, u)}</dd>
+            <dd className="num text-right">{showMass(own.sugarDeliveredKg, u)}</dd>
             <dt>Share of the co-op’s boiled sugar</dt>
             <dd className="num text-right">{formatShare(own.share)}</dd>
             <dt>Syrup earned to date</dt>

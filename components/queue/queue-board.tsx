@@ -3,11 +3,12 @@
 import { Alert } from '@/components/ui/alert';
 import { Badge } from '@/components/ui/badge';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
-import { GRADE_CLASS_INFO, formatBrix, formatVolume, type UnitSystem } from '@/lib/sugar';
+import { GRADE_CLASS_INFO, formatBrix, type UnitSystem } from '@/lib/sugar';
 import type { QueueRun, QueueSnapshot } from '@/lib/queue/types';
 import { cn } from '@/lib/utils';
 import { clock, duration, STATE_BADGE, STATE_LABEL } from './format';
 import { useLiveQueue, type LiveStatus } from './use-live-queue';
+import { showSyrup, showVolume } from '@/lib/figures';
 
 interface QueueBoardProps {
   initial: QueueSnapshot;
@@ -49,13 +50,13 @@ export function RunNow({ run, unitSystem, timeZone }: { run: QueueRun | null; un
       <CardBody>
         <dl className="grid grid-cols-2 gap-3 sm:grid-cols-4">
           <Stat label="Started" value={clock(run.startedAt, timeZone)} />
-          <Stat label="Sap taken in" value={formatVolume(run.inputL, unitSystem)} />
-          <Stat label="Syrup drawn" value={`${formatVolume(run.syrupDrawnL, unitSystem)} of ${formatVolume(run.syrupExpectedL, unitSystem)}`} testId="run-syrup" />
+          <Stat label="Sap taken in" value={showVolume(run.inputL, unitSystem)} />
+          <Stat label="Syrup drawn" value={`${showSyrup(run.syrupDrawnL, unitSystem)} of ${showSyrup(run.syrupExpectedL, unitSystem)}`} testId="run-syrup" />
           <Stat label="Left to boil" value={duration(run.hoursLeft)} />
         </dl>
         {last ? (
           <p className="text-sm">
-            Last draw-off {clock(last.drawnAt, timeZone, false)}: {formatVolume(last.litres, unitSystem)} at {formatBrix(last.brix)}{' '}
+            Last draw-off {clock(last.drawnAt, timeZone, false)}: {showSyrup(last.litres, unitSystem)} at {formatBrix(last.brix)}{' '}
             {last.gradeClass ? <Badge variant={last.gradeClass}>{GRADE_CLASS_INFO[last.gradeClass].name}</Badge> : null}
           </p>
         ) : null}
@@ -88,10 +89,10 @@ export function QueueBoard({ initial, unitSystem, timeZone, ownHouseholdId }: Qu
       </div>
       <RunNow run={run} unitSystem={unitSystem} timeZone={timeZone} />
       <dl className="grid grid-cols-2 gap-3 md:grid-cols-4">
-        <Stat label="Sap waiting" value={formatVolume(totals.litresWaiting, unitSystem)} testId="total-waiting" />
+        <Stat label="Sap waiting" value={showVolume(totals.litresWaiting, unitSystem)} testId="total-waiting" />
         <Stat label="Evaporator hours needed" value={duration(totals.hoursNeeded)} />
         <Stat label="Booked ahead" value={duration(totals.hoursBookedAhead)} />
-        <Stat label="Syrup drawn today" value={formatVolume(totals.syrupDrawnTodayL, unitSystem)} />
+        <Stat label="Syrup drawn today" value={showSyrup(totals.syrupDrawnTodayL, unitSystem)} />
       </dl>
       {totals.atRisk > 0 ? (
         <Alert tone="warning" title={`${totals.atRisk} ${totals.atRisk === 1 ? 'lot' : 'lots'} will spoil before their turn`}>
@@ -130,7 +131,7 @@ export function QueueBoard({ initial, unitSystem, timeZone, ownHouseholdId }: Qu
                   {l.spoilsBeforeTurn ? <Badge variant="ember">Spoils before its turn</Badge> : null}
                 </div>
                 <div className="text-right font-semibold sm:row-span-2 sm:self-center">
-                  {formatVolume(l.litresLeft, unitSystem)} · {formatBrix(l.brix)}
+                  {showVolume(l.litresLeft, unitSystem)} · {formatBrix(l.brix)}
                 </div>
                 <p className="col-start-2 text-sm text-slate-muted">
                   Boil {clock(l.etaStart, timeZone)}–{clock(l.etaEnd, timeZone, false)} ({duration(l.boilHours)}) · deadline {clock(l.deadline, timeZone)}

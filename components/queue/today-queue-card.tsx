@@ -2,8 +2,9 @@ import Link from 'next/link';
 import { buttonVariants } from '@/components/ui/button';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { currentSnapshot } from '@/lib/queue/service';
-import { formatVolume, type UnitSystem } from '@/lib/sugar';
+import { type UnitSystem } from '@/lib/sugar';
 import { clock, STATE_LABEL } from './format';
+import { showSyrup, showVolume } from '@/lib/figures';
 
 interface TodayQueueCardProps {
   cooperativeId: string;
@@ -27,11 +28,11 @@ export async function TodayQueueCard({ cooperativeId, householdId, unitSystem, t
       <CardBody>
         <p>
           {run
-            ? `Run ${run.lotCode} is boiling on ${run.evaporatorName}: ${formatVolume(run.syrupDrawnL, unitSystem)} of syrup drawn of ${formatVolume(run.syrupExpectedL, unitSystem)} expected.`
+            ? `Run ${run.lotCode} is boiling on ${run.evaporatorName}: ${showSyrup(run.syrupDrawnL, unitSystem)} of syrup drawn of ${showSyrup(run.syrupExpectedL, unitSystem)} expected.`
             : 'Nothing is boiling right now.'}
         </p>
         <p className="text-slate-muted">
-          {totals.lots} lots ({formatVolume(totals.litresWaiting, unitSystem)}) wait in the queue
+          {totals.lots} lots ({showVolume(totals.litresWaiting, unitSystem)}) wait in the queue
           {totals.atRisk ? `; ${totals.atRisk} will spoil before their turn` : ''}.
         </p>
         {householdId ? (
@@ -39,7 +40,7 @@ export async function TodayQueueCard({ cooperativeId, householdId, unitSystem, t
             <ul className="flex flex-col gap-1" aria-label="Your lots in the queue">
               {own.map((l) => (
                 <li key={l.deliveryId}>
-                  <span className="font-semibold">No. {l.place}</span>: {formatVolume(l.litresLeft, unitSystem)}, {STATE_LABEL[l.state].toLowerCase()}, boil
+                  <span className="font-semibold">No. {l.place}</span>: {showVolume(l.litresLeft, unitSystem)}, {STATE_LABEL[l.state].toLowerCase()}, boil
                   from about {clock(l.etaStart, timeZone)}
                 </li>
               ))}

@@ -2,7 +2,8 @@ import { Badge } from '@/components/ui/badge';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { clock } from '@/components/queue/format';
 import type { RunDto } from '@/lib/runs/types';
-import { GRADE_CLASS_INFO, formatBrix, formatMoney, formatVolume, type GradeClass, type UnitSystem } from '@/lib/sugar';
+import { GRADE_CLASS_INFO, formatBrix, formatMoney, type GradeClass, type UnitSystem } from '@/lib/sugar';
+import { showSyrup, showVolume } from '@/lib/figures';
 
 interface FinishedRunsProps {
   runs: RunDto[];
@@ -33,12 +34,12 @@ export function FinishedRuns({ runs, unitSystem, timeZone, currency }: FinishedR
                       {clock(r.startedAt, timeZone)}–{r.finishedAt ? clock(r.finishedAt, timeZone, false) : ''}
                     </span>
                     <span>
-                      {formatVolume(r.totals.inputL, unitSystem)} sap → {formatVolume(r.totals.syrupDrawnL, unitSystem)} syrup
+                      {showVolume(r.totals.inputL, unitSystem)} sap → {showSyrup(r.totals.syrupDrawnL, unitSystem)} syrup
                     </span>
                     <span className="flex flex-wrap gap-1">
                       {[...byClass].map(([k, l]) => (
                         <Badge key={k} variant={k}>
-                          {GRADE_CLASS_INFO[k].name} {formatVolume(l, unitSystem)}
+                          {GRADE_CLASS_INFO[k].name} {showSyrup(l, unitSystem)}
                         </Badge>
                       ))}
                     </span>
@@ -49,7 +50,7 @@ export function FinishedRuns({ runs, unitSystem, timeZone, currency }: FinishedR
                       <ul>
                         {r.inputs.map((i) => (
                           <li key={i.id}>
-                            {i.householdName}: {formatVolume(i.litres, unitSystem)} at {formatBrix(i.brix)}
+                            {i.householdName}: {showVolume(i.litres, unitSystem)} at {formatBrix(i.brix)}
                           </li>
                         ))}
                       </ul>
@@ -59,7 +60,7 @@ export function FinishedRuns({ runs, unitSystem, timeZone, currency }: FinishedR
                       <ul>
                         {r.draws.map((d) => (
                           <li key={d.id}>
-                            {clock(d.drawnAt, timeZone, false)}: {formatVolume(d.litres, unitSystem)} at {formatBrix(d.brix)}
+                            {clock(d.drawnAt, timeZone, false)}: {showSyrup(d.litres, unitSystem)} at {formatBrix(d.brix)}
                             {d.transmittancePct !== null ? `, ${d.transmittancePct} %Tc` : ''} ({GRADE_CLASS_INFO[d.gradeClass].name})
                           </li>
                         ))}

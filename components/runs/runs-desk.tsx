@@ -15,17 +15,9 @@ import { useLiveQueue } from '@/components/queue/use-live-queue';
 import { ApiClientError, apiSend, applyFieldErrors } from '@/lib/client/api';
 import type { QueueSnapshot } from '@/lib/queue/types';
 import type { RunDto } from '@/lib/runs/types';
-import {
-  GRADE_CLASS_INFO,
-  fahrenheitToCelsius,
-  formatBrix,
-  formatMoney,
-  formatVolume,
-  gallonsToLitres,
-  gradeClass,
-  type UnitSystem,
-} from '@/lib/sugar';
+import { GRADE_CLASS_INFO, fahrenheitToCelsius, formatBrix, formatMoney, gallonsToLitres, gradeClass, type UnitSystem } from '@/lib/sugar';
 import { FinishedRuns } from './finished-runs';
+import { showSyrup, showVolume } from '@/lib/figures';
 
 export interface RunsDeskProps {
   initialRuns: RunDto[];
@@ -54,7 +46,7 @@ export function RunsDesk(props: RunsDeskProps) {
       <div className="flex flex-wrap items-center justify-between gap-2">
         <LiveStatusPill status={status} />
         <span className="text-sm text-slate-muted">
-          Queue: {snapshot.totals.lots} lots, {formatVolume(snapshot.totals.litresWaiting, unitSystem)} waiting
+          Queue: {snapshot.totals.lots} lots, {showVolume(snapshot.totals.litresWaiting, unitSystem)} waiting
         </span>
       </div>
       {running.map((run) => (
@@ -141,9 +133,9 @@ function RunPanel({ run, onRun, queue, unitSystem, timeZone, currency, evaporato
       </CardHeader>
       <CardBody className="flex flex-col gap-5">
         <dl className="grid grid-cols-2 gap-3 md:grid-cols-4">
-          <Stat label="Sap taken in" value={formatVolume(t.inputL, unitSystem)} />
-          <Stat label="Syrup expected" value={formatVolume(t.syrupExpectedL, unitSystem)} hint="what the sugar makes at the co-op’s °Bx" />
-          <Stat label="Syrup drawn" value={formatVolume(t.syrupDrawnL, unitSystem)} hint={t.syrupExpectedL ? `${Math.round(share * 100)} % of expected` : undefined} testId="syrup-drawn" />
+          <Stat label="Sap taken in" value={showVolume(t.inputL, unitSystem)} />
+          <Stat label="Syrup expected" value={showSyrup(t.syrupExpectedL, unitSystem)} hint="what the sugar makes at the co-op’s °Bx" />
+          <Stat label="Syrup drawn" value={showSyrup(t.syrupDrawnL, unitSystem)} hint={t.syrupExpectedL ? `${Math.round(share * 100)} % of expected` : undefined} testId="syrup-drawn" />
           <Stat label="Fuel" value={formatMoney(t.fuelCostCents, currency)} />
         </dl>
         {share > 1.02 ? (
@@ -206,7 +198,7 @@ function TakeLots({ run, queue, onRun, unitSystem, timeZone }: { run: RunDto; qu
         {head.map((l) => (
           <li key={l.deliveryId} data-testid="take-lot" className="grid gap-2 rounded-lg border border-birch-line p-3 md:grid-cols-[1fr_auto] md:items-center">
             <div>
-              <span className="font-semibold">{l.householdName}</span> · {formatVolume(l.litresLeft, unitSystem)} at {formatBrix(l.brix)}
+              <span className="font-semibold">{l.householdName}</span> · {showVolume(l.litresLeft, unitSystem)} at {formatBrix(l.brix)}
               <span className="block text-sm text-slate-muted">
                 deadline {clock(l.deadline, timeZone)}
                 {l.spoilsBeforeTurn ? ' · spoils before its turn' : ''}
@@ -366,7 +358,7 @@ function RunLists({ run, unitSystem, timeZone, currency }: { run: RunDto; unitSy
         <ul className="text-sm">
           {run.inputs.map((i) => (
             <li key={i.id}>
-              {i.householdName}: {formatVolume(i.litres, unitSystem)} at {formatBrix(i.brix)}
+              {i.householdName}: {showVolume(i.litres, unitSystem)} at {formatBrix(i.brix)}
             </li>
           ))}
           {run.inputs.length === 0 ? <li className="text-slate-muted">None yet.</li> : null}
@@ -377,7 +369,7 @@ function RunLists({ run, unitSystem, timeZone, currency }: { run: RunDto; unitSy
         <ul className="flex flex-col gap-1 text-sm" data-testid="run-draws">
           {run.draws.map((d) => (
             <li key={d.id}>
-              {clock(d.drawnAt, timeZone, false)} · {formatVolume(d.litres, unitSystem)} at {formatBrix(d.brix)}{' '}
+              {clock(d.drawnAt, timeZone, false)} · {showSyrup(d.litres, unitSystem)} at {formatBrix(d.brix)}{' '}
               <Badge variant={d.gradeClass}>{GRADE_CLASS_INFO[d.gradeClass].name}</Badge>
             </li>
           ))}

@@ -8,15 +8,22 @@ export interface TableProps extends ComponentProps<'table'> {
    */
   label?: string;
   containerClassName?: string;
+  /**
+   * Below tablet width, show each row as a card of "label … value" lines (give each TD a
+   * `label`) instead of a table to scroll sideways.
+   */
+  stack?: boolean;
 }
 
-export function Table({ label, containerClassName, className, ...props }: TableProps) {
+export function Table({ label, containerClassName, className, stack = false, ...props }: TableProps) {
   return (
     <div
-      className={cn('w-full overflow-x-auto rounded-lg border border-birch-line bg-birch-raised', containerClassName)}
+      // `relative` keeps absolutely placed content (screen-reader-only headings) inside the
+      // scrolling box, where it cannot widen the page.
+      className={cn('relative w-full overflow-x-auto rounded-lg border border-birch-line bg-birch-raised', containerClassName)}
       {...(label ? { role: 'region', 'aria-label': label, tabIndex: 0 } : {})}
     >
-      <table className={cn('w-full border-collapse text-left text-base', className)} {...props} />
+      <table className={cn('w-full border-collapse text-left text-base', stack && 'table-stack', className)} {...props} />
     </div>
   );
 }
@@ -63,11 +70,14 @@ export function TH({ numeric = false, scope = 'col', className, ...props }: THPr
 export interface TDProps extends ComponentProps<'td'> {
   /** Right-aligns a figure with tabular digits so the column lines up. */
   numeric?: boolean;
+  /** The column's heading, shown beside the value when a stacked table is a list on a phone. */
+  label?: string;
 }
 
-export function TD({ numeric = false, className, ...props }: TDProps) {
+export function TD({ numeric = false, label, className, ...props }: TDProps) {
   return (
     <td
+      data-label={label}
       className={cn('px-3 py-2.5 text-slate', numeric ? 'num text-right whitespace-nowrap' : 'text-left', className)}
       {...props}
     />

@@ -1,11 +1,12 @@
-import { formatBrix, formatMass, formatMoney, formatVolume, GRADE_CLASS_INFO, GRADE_CLASSES, type UnitSystem } from '@/lib/sugar';
+import { formatMoney, GRADE_CLASS_INFO, GRADE_CLASSES, type UnitSystem } from '@/lib/sugar';
 import type { Statement, SyrupByClass } from './types';
+import { showBrix, showMass, showSyrup, showVolume } from '@/lib/figures';
 
 /** Display helpers for ledger and statement figures (client-safe, no database). */
 
 export const formatShare = (share: number) => `${(share * 100).toFixed(1)} %`;
 
-export const formatSyrup = (ml: number, units: UnitSystem) => formatVolume(ml / 1000, units, { digits: 2 });
+export const formatSyrup = (ml: number, units: UnitSystem) => showSyrup(ml / 1000, units);
 
 /** "Golden 1.20 gal, Amber 0.80 gal" — only the classes present. */
 export function formatSyrupClasses(byClass: SyrupByClass, units: UnitSystem): string {
@@ -25,9 +26,9 @@ export function statementLines(s: Statement): StatementLine[] {
   const u = s.unitSystem;
   const money = (c: number) => formatMoney(c, s.currency);
   return [
-    { label: 'Sap delivered (accepted)', value: formatVolume(s.sapL, u) },
-    { label: 'Average sugar content', value: s.meanBrix === null ? '—' : formatBrix(s.meanBrix) },
-    { label: 'Sugar in the season’s boils', value: formatMass(s.sugarKg, u) },
+    { label: 'Sap delivered (accepted)', value: showVolume(s.sapL, u) },
+    { label: 'Average sugar content', value: s.meanBrix === null ? '—' : showBrix(s.meanBrix) },
+    { label: 'Sugar in the season’s boils', value: showMass(s.sugarKg, u) },
     { label: 'Share of the season’s sugar', value: formatShare(s.share) },
     { label: 'Syrup owed', value: formatSyrup(s.syrupMl, u) },
     { label: 'Syrup by colour class', value: formatSyrupClasses(s.syrupByClassMl, u) },

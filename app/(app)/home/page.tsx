@@ -6,7 +6,7 @@ import { listUpcomingSlots } from '@/lib/slots/service';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { buttonVariants } from '@/components/ui/button';
 import { formatSlotRange } from '@/lib/time';
-import { formatVolume } from '@/lib/sugar';
+import { showRate } from '@/lib/figures';
 import { Alert } from '@/components/ui/alert';
 import { TodayQueueCard } from '@/components/queue/today-queue-card';
 import { TodayLedgerCard } from '@/components/ledger/today-ledger-card';
@@ -73,7 +73,7 @@ export default async function HomePage() {
             <ul className="flex flex-col gap-1">
               {evaporators.map((e) => (
                 <li key={e.id}>
-                  {e.name}: {formatVolume(e.evaporationLph, coop.unitSystem)} of water an hour, {e.fuelKind}-fired
+                  {e.name}: boils off {showRate(e.evaporationLph, coop.unitSystem)} of water, {e.fuelKind}-fired
                 </li>
               ))}
             </ul>

@@ -4,7 +4,8 @@ import { requireContext } from '@/lib/server/context';
 import { listSeasons } from '@/lib/coop/service';
 import { getLedger } from '@/lib/ledger/service';
 import { formatShare, formatSyrup, formatSyrupClasses } from '@/lib/ledger/format';
-import { formatBrix, formatMass, formatMoney, formatVolume, KG_PER_POUND } from '@/lib/sugar';
+import { formatMoney, KG_PER_POUND } from '@/lib/sugar';
+import { showBrix, showMass, showVolume } from '@/lib/figures';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { Table, TBody, TD, TH, THead, TR } from '@/components/ui/table';
 import { Badge } from '@/components/ui/badge';
@@ -57,7 +58,7 @@ export default async function LedgerPage({ searchParams }: { searchParams: Promi
 
       <section aria-labelledby="by-sugar">
         <h2 id="by-sugar" className="mb-2 text-xl font-bold">By sugar{isMember ? ': your household' : ''}</h2>
-        <Table label="Ledger by sugar">
+        <Table label="Ledger by sugar" stack>
           <THead>
             <TR>
               <TH>Household</TH>
@@ -81,18 +82,18 @@ export default async function LedgerPage({ searchParams }: { searchParams: Promi
                 <TH scope="row">
                   {statementOf.has(h.householdId) ? <Link href={`/statements/${statementOf.get(h.householdId)}`}>{h.name}</Link> : h.name}
                 </TH>
-                <TD numeric>{formatVolume(h.sapL, u, { digits: 1 })}</TD>
-                <TD numeric>{formatVolume(h.rejectedL, u, { digits: 1 })}</TD>
-                <TD numeric>{h.meanBrix === null ? '—' : formatBrix(h.meanBrix, { digits: 2 })}</TD>
-                <TD numeric>{formatMass(h.sugarKg, u)}</TD>
-                <TD numeric>{formatShare(h.share)}</TD>
-                <TD numeric>{formatSyrup(h.syrupMl, u)}</TD>
-                <TD className="min-w-56">{formatSyrupClasses(h.syrupByClassMl, u)}</TD>
-                <TD numeric>{money(h.fuelCents)}</TD>
-                <TD numeric>{money(h.feeCents)}</TD>
-                <TD numeric>{money(h.dueCents)}</TD>
-                <TD numeric>{money(h.paidCents)}</TD>
-                <TD numeric className={h.balanceCents > 0 ? 'font-semibold text-ember' : undefined}>
+                <TD label="Sap delivered" numeric>{showVolume(h.sapL, u)}</TD>
+                <TD label="Rejected" numeric>{showVolume(h.rejectedL, u)}</TD>
+                <TD label="Mean °Brix" numeric>{h.meanBrix === null ? '—' : showBrix(h.meanBrix)}</TD>
+                <TD label="Sugar" numeric>{showMass(h.sugarKg, u)}</TD>
+                <TD label="Share" numeric>{formatShare(h.share)}</TD>
+                <TD label="Syrup" numeric>{formatSyrup(h.syrupMl, u)}</TD>
+                <TD label="By colour class" className="stack-wide min-w-56">{formatSyrupClasses(h.syrupByClassMl, u)}</TD>
+                <TD label="Fuel" numeric>{money(h.fuelCents)}</TD>
+                <TD label="Fee" numeric>{money(h.feeCents)}</TD>
+                <TD label="Due" numeric>{money(h.dueCents)}</TD>
+                <TD label="Paid" numeric>{money(h.paidCents)}</TD>
+                <TD label="Balance" numeric className={h.balanceCents > 0 ? 'font-semibold text-ember' : undefined}>
                   {money(h.balanceCents)}
                   {h.balanceCents > 0 && ledger.season.status === 'settled' ? ' owing' : ''}
                 </TD>
@@ -100,18 +101,18 @@ export default async function LedgerPage({ searchParams }: { searchParams: Promi
             ))}
             <TR className="bg-birch font-semibold">
               <TH scope="row">Co-op total</TH>
-              <TD numeric>{formatVolume(t.sapL, u, { digits: 1 })}</TD>
-              <TD numeric>{formatVolume(t.rejectedL, u, { digits: 1 })}</TD>
-              <TD numeric>—</TD>
-              <TD numeric>{formatMass(t.sugarKg, u)}</TD>
-              <TD numeric>100.0 %</TD>
-              <TD numeric>{formatSyrup(t.syrupMl, u)}</TD>
-              <TD>{formatSyrupClasses(t.syrupByClassMl, u)}</TD>
-              <TD numeric>{money(t.fuelCents)}</TD>
-              <TD numeric>{isMember ? '—' : money(t.feeCents)}</TD>
-              <TD numeric>{isMember ? '—' : money(t.dueCents)}</TD>
-              <TD numeric>{isMember ? '—' : money(t.paidCents)}</TD>
-              <TD numeric>{isMember ? '—' : money(t.balanceCents)}</TD>
+              <TD label="Sap delivered" numeric>{showVolume(t.sapL, u)}</TD>
+              <TD label="Rejected" numeric>{showVolume(t.rejectedL, u)}</TD>
+              <TD label="Mean °Brix" numeric>—</TD>
+              <TD label="Sugar" numeric>{showMass(t.sugarKg, u)}</TD>
+              <TD label="Share" numeric>100.0 %</TD>
+              <TD label="Syrup" numeric>{formatSyrup(t.syrupMl, u)}</TD>
+              <TD label="By colour class" className="stack-wide">{formatSyrupClasses(t.syrupByClassMl, u)}</TD>
+              <TD label="Fuel" numeric>{money(t.fuelCents)}</TD>
+              <TD label="Fee" numeric>{isMember ? '—' : money(t.feeCents)}</TD>
+              <TD label="Due" numeric>{isMember ? '—' : money(t.dueCents)}</TD>
+              <TD label="Paid" numeric>{isMember ? '—' : money(t.paidCents)}</TD>
+              <TD label="Balance" numeric>{isMember ? '—' : money(t.balanceCents)}</TD>
             </TR>
           </TBody>
         </Table>
@@ -119,7 +120,7 @@ export default async function LedgerPage({ searchParams }: { searchParams: Promi
 
       <section aria-labelledby="by-volume">
         <h2 id="by-volume" className="mb-2 text-xl font-bold">By volume, for comparison</h2>
-        <Table label="The same runs split by volume">
+        <Table label="The same runs split by volume" stack>
           <THead>
             <TR>
               <TH>Household</TH>
@@ -135,12 +136,12 @@ export default async function LedgerPage({ searchParams }: { searchParams: Promi
             {ledger.households.map((h) => (
               <TR key={h.householdId} data-testid={`volume-row-${h.name}`}>
                 <TH scope="row">{h.name}</TH>
-                <TD numeric>{formatVolume(h.boiledL, u, { digits: 1 })}</TD>
-                <TD numeric>{formatShare(h.byVolume.share)}</TD>
-                <TD numeric>{formatSyrup(h.byVolume.syrupMl, u)}</TD>
-                <TD numeric>{money(h.byVolume.fuelCents)}</TD>
-                <TD numeric>{formatSyrup(h.syrupMl, u)}</TD>
-                <TD numeric>
+                <TD label="Sap boiled" numeric>{showVolume(h.boiledL, u)}</TD>
+                <TD label="Share by volume" numeric>{formatShare(h.byVolume.share)}</TD>
+                <TD label="Syrup by volume" numeric>{formatSyrup(h.byVolume.syrupMl, u)}</TD>
+                <TD label="Fuel by volume" numeric>{money(h.byVolume.fuelCents)}</TD>
+                <TD label="Syrup by sugar" numeric>{formatSyrup(h.syrupMl, u)}</TD>
+                <TD label="Difference" numeric>
                   {h.syrupMl >= h.byVolume.syrupMl ? '+' : '−'}
                   {formatSyrup(Math.abs(h.syrupMl - h.byVolume.syrupMl), u)}
                 </TD>
@@ -213,7 +214,7 @@ export default async function LedgerPage({ searchParams }: { searchParams: Promi
                     <span>{money(run.fuelCents)} fuel</span>
                   </summary>
                   <div className="px-3 pb-3">
-                    <Table>
+                    <Table stack>
                       <THead>
                         <TR>
                           <TH>Household</TH>
@@ -228,11 +229,11 @@ export default async function LedgerPage({ searchParams }: { searchParams: Promi
                         {run.allocations.map((a) => (
                           <TR key={a.householdId}>
                             <TH scope="row">{nameOf.get(a.householdId)}</TH>
-                            <TD numeric>{formatVolume(a.sapL, u, { digits: 1 })}</TD>
-                            <TD numeric>{formatMass(a.sugarKg, u)}</TD>
-                            <TD numeric>{formatShare(a.share)}</TD>
-                            <TD numeric>{formatSyrup(a.syrupMl, u)}</TD>
-                            <TD numeric>{money(a.fuelCents)}</TD>
+                            <TD label="Sap in" numeric>{showVolume(a.sapL, u)}</TD>
+                            <TD label="Sugar" numeric>{showMass(a.sugarKg, u)}</TD>
+                            <TD label="Share" numeric>{formatShare(a.share)}</TD>
+                            <TD label="Syrup" numeric>{formatSyrup(a.syrupMl, u)}</TD>
+                            <TD label="Fuel" numeric>{money(a.fuelCents)}</TD>
                           </TR>
                         ))}
                       </TBody>

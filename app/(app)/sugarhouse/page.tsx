@@ -1,7 +1,8 @@
 import type { Metadata } from 'next';
 import { requireContext } from '@/lib/server/context';
 import { getCooperative, listEvaporators } from '@/lib/coop/service';
-import { GRADE_CLASSES, GRADE_CLASS_INFO, formatBrix, formatVolume, standardPressureKPa } from '@/lib/sugar';
+import { GRADE_CLASSES, GRADE_CLASS_INFO, formatBrix, standardPressureKPa } from '@/lib/sugar';
+import { showRate } from '@/lib/figures';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { Alert } from '@/components/ui/alert';
 import { Badge } from '@/components/ui/badge';
@@ -46,7 +47,7 @@ export default async function SugarhousePage() {
             <CardTitle>Evaporators</CardTitle>
           </CardHeader>
           <CardBody>
-            <Table label="Evaporators">
+            <Table label="Evaporators" stack>
               <THead>
                 <TR>
                   <TH>Name</TH>
@@ -57,9 +58,9 @@ export default async function SugarhousePage() {
               <TBody>
                 {evaporators.map((e) => (
                   <TR key={e.id}>
-                    <TD>{e.name}</TD>
-                    <TD numeric>{formatVolume(e.evaporationLph, units)} of water an hour</TD>
-                    <TD>{e.fuelKind}</TD>
+                    <TH scope="row">{e.name}</TH>
+                    <TD label="Rated evaporation" numeric>{showRate(e.evaporationLph, units)} of water</TD>
+                    <TD label="Fuel">{e.fuelKind}</TD>
                   </TR>
                 ))}
               </TBody>
