@@ -374,6 +374,7 @@ export function BoilCalendar({ setup }: { setup: CalendarSetup }) {
               eventDrop={(arg) => void move(arg)}
               eventResize={(arg) => void move(arg)}
               datesSet={onDatesSet}
+              viewDidMount={focusableScrollers}
             />
           )}
         </div>
@@ -430,4 +431,16 @@ function titleOf(type: ViewName, start: Date, end: Date, zone: string): string {
   if (s.hasSame(last, 'month')) return `${s.toFormat('d')} – ${last.toFormat('d LLL yyyy')}`;
   if (s.hasSame(last, 'year')) return `${s.toFormat('d LLL')} – ${last.toFormat('d LLL yyyy')}`;
   return `${s.toFormat('d LLL yyyy')} – ${last.toFormat('d LLL yyyy')}`;
+}
+
+/**
+ * The calendar's time grid scrolls inside a box of its own; a keyboard user reaches it with Tab
+ * and scrolls it with the arrow keys, and a screen reader hears what it holds.
+ */
+function focusableScrollers({ el }: { el: HTMLElement }) {
+  el.querySelectorAll<HTMLElement>('.fc-scroller-liquid-absolute').forEach((box) => {
+    box.tabIndex = 0;
+    box.setAttribute('role', 'region');
+    box.setAttribute('aria-label', 'Boil slots by time of day');
+  });
 }
