@@ -7,7 +7,7 @@ import {
   kgToPounds,
   litresToGallons,
   type UnitSystem,
-} from '@/lib/sugar/units';
+} from './sugar/units';
 
 /**
  * How precisely each kind of figure is shown on a screen, decided in one place by its unit and

@@ -3,7 +3,8 @@ import Papa from 'papaparse';
 import type { Page } from '@playwright/test';
 import { expect, test, SignInPage } from './fixtures';
 import { clearMail, waitForMail } from '../mailbox';
-import { formatMass, formatVolume, gallonsToLitres, sugarKg, syrupLitres } from '../../lib/sugar';
+import { gallonsToLitres, sugarKg, syrupLitres } from '../../lib/sugar';
+import { showMass, showSyrup } from '../../lib/figures';
 
 // A tablet at the sap tank, in portrait.
 test.use({ viewport: { width: 820, height: 1180 }, hasTouch: true });
@@ -34,8 +35,8 @@ test('a sugarmaker logs a lot with a photo and the live figures, and the househo
   await fillLot(page, { household: 'Nakamura', gallons: '52.5', brix: '2.4', tempF: '37' });
   // The preview follows lib/sugar for 52.5 gal of 2.4 °Bx sap, in the co-op's US units.
   const litres = gallonsToLitres(52.5);
-  await expect(page.getByTestId('preview-sugar')).toHaveText(formatMass(sugarKg(litres, 2.4), 'us'));
-  await expect(page.getByTestId('preview-syrup')).toHaveText(formatVolume(syrupLitres(litres, 2.4, 66.9), 'us', { digits: 2 }));
+  await expect(page.getByTestId('preview-sugar')).toHaveText(showMass(sugarKg(litres, 2.4), 'us'));
+  await expect(page.getByTestId('preview-syrup')).toHaveText(showSyrup(syrupLitres(litres, 2.4, 66.9), 'us'));
   await expect(page.getByTestId('preview-hours')).toHaveText(/^\d+\.\d h$/);
   await expect(page.getByTestId('preview-deadline')).not.toHaveText('—');
   await expect(page.getByTestId('recommendation')).toHaveText('Recommended: accept.');
