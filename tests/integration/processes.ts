@@ -47,6 +47,12 @@ export async function startServer(
     env: { ...env, NODE_ENV: 'production', NEXT_DIST_DIR: env.NEXT_DIST_DIR ?? '.next-test', PORT: String(port), APP_URL: url, NEXTAUTH_URL: url },
     stdio: ['ignore', log, log],
   });
-  await until(`${name} answering at ${url} (see .data/${name}.log)`, async () => child.exitCode === null && isUp(await (await fetch(`${url}/api/health`)).json()), startTimeoutMs);
+  try {
+    await until(`${name} answering at ${url} (see .data/${name}.log)`, async () => child.exitCode === null && isUp(await (await fetch(`${url}/api/health`)).json()), startTimeoutMs);
+  } catch (err) {
+    // A server that did not come up in time is not left running after the test.
+    child.kill('SIGKILL');
+    throw err;
+  }
   return { url, process: child, stop: () => void child.kill('SIGTERM') };
 }
