@@ -3,16 +3,15 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import useSWR, { useSWRConfig } from 'swr';
 import { DateTime } from 'luxon';
-import FullCalendar from '@fullcalendar/react';
-import dayGridPlugin from '@fullcalendar/daygrid';
-import timeGridPlugin from '@fullcalendar/timegrid';
-import interactionPlugin, { type DateClickArg, type EventResizeDoneArg } from '@fullcalendar/interaction';
-import luxonPlugin from '@fullcalendar/luxon3';
+import dynamic from 'next/dynamic';
+import type FullCalendar from '@fullcalendar/react';
+import type { DateClickArg, EventResizeDoneArg } from '@fullcalendar/interaction';
 import type { DateSelectArg, DateSpanApi, DatesSetArg, EventClickArg, EventContentArg, EventDropArg, EventInput, EventMountArg } from '@fullcalendar/core';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { toast } from '@/components/ui/toaster';
 import { ApiClientError, fetcher } from '@/lib/client/api';
+import type { PlanningDto } from '@/lib/planning/types';
 import type { SlotDto } from '@/lib/slots/types';
 import { formatSlotRange } from '@/lib/time';
 import { cn } from '@/lib/utils';
@@ -33,14 +32,25 @@ const VIEWS: { name: ViewName; label: string; unit: string }[] = [
   { name: 'timeGridDay', label: 'Day', unit: 'day' },
 ];
 
+// Phones (below Tailwind's sm) get the day view and a shorter calendar.
 const NARROW = '(max-width: 639.98px)';
-const PLUGINS = [dayGridPlugin, timeGridPlugin, interactionPlugin, luxonPlugin];
+const HEIGHT = { narrow: 620, wide: 760 };
+
+/** Holds the calendar's final place (its height on phones and wider screens) until it is drawn, so nothing below moves. */
+function CalendarSkeleton() {
+  return <div className="h-[620px] rounded-lg bg-birch motion-safe:animate-pulse sm:h-[760px]" aria-hidden="true" data-testid="calendar-skeleton" />;
+}
+
+// FullCalendar and its plugins are the page's heaviest code: not in the page's first scripts, but
+// fetched as soon as this module runs in the browser, beside hydration, and drawn once it is there.
+if (typeof window !== 'undefined') void import('./calendar-view');
+const CalendarView = dynamic(() => import('./calendar-view'), { ssr: false, loading: CalendarSkeleton });
 const isSlotsKey = (key: unknown) => typeof key === 'string' && key.startsWith('/api/slots?');
 
 let pendingCount = 0;
 
 /** The co-op's Boil calendar: who crews the evaporator when, booking, and changes made live. */
-export function BoilCalendar({ setup }: { setup: CalendarSetup }) {
+export function BoilCalendar({ setup, initialPlanning }: { setup: CalendarSetup; initialPlanning?: PlanningDto }) {
   const zone = setup.timeZone;
   const calendarRef = useRef<FullCalendar>(null);
   const [narrow, setNarrow] = useState<boolean | null>(null);
@@ -276,7 +286,7 @@ export function BoilCalendar({ setup }: { setup: CalendarSetup }) {
 
   return (
     <div className="flex flex-col gap-4">
-      <PlanningStrip timeZone={zone} unitSystem={setup.unitSystem} />
+      <PlanningStrip timeZone={zone} unitSystem={setup.unitSystem} initialData={initialPlanning} />
 
       <section aria-labelledby="calendar-title" className="flex flex-col gap-3 rounded-xl border border-birch-line bg-birch-raised p-3 shadow-sm sm:p-4">
         <div className="flex flex-wrap items-center gap-2">
@@ -333,15 +343,14 @@ export function BoilCalendar({ setup }: { setup: CalendarSetup }) {
 
         <div className={styles.calendar} data-testid="boil-calendar">
           {narrow === null ? (
-            <div className="h-[560px] rounded-lg bg-birch motion-safe:animate-pulse" aria-hidden="true" />
+            <CalendarSkeleton />
           ) : (
-            <FullCalendar
-              ref={calendarRef}
-              plugins={PLUGINS}
+            <CalendarView
+              calendarRef={calendarRef}
               timeZone={zone}
               initialView={narrow ? 'timeGridDay' : 'timeGridWeek'}
               headerToolbar={false}
-              height={narrow ? 620 : 760}
+              height={narrow ? HEIGHT.narrow : HEIGHT.wide}
               allDaySlot={false}
               slotDuration="00:30:00"
               scrollTime={setup.opensAt}

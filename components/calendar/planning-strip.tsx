@@ -13,11 +13,13 @@ export const PLANNING_KEY = '/api/planning';
 interface PlanningStripProps {
   timeZone: string;
   unitSystem: UnitSystem;
+  /** The figures the page was rendered with on the server (no placeholder, nothing moves). */
+  initialData?: PlanningDto;
 }
 
 /** How the booked evaporator time compares with the sap waiting to be boiled. */
-export function PlanningStrip({ timeZone, unitSystem }: PlanningStripProps) {
-  const { data, error } = useSWR<PlanningDto>(PLANNING_KEY, fetcher);
+export function PlanningStrip({ timeZone, unitSystem, initialData }: PlanningStripProps) {
+  const { data, error } = useSWR<PlanningDto>(PLANNING_KEY, fetcher, { fallbackData: initialData });
 
   return (
     <section aria-labelledby="planning-heading" data-testid="planning-strip" className="flex flex-col gap-3">

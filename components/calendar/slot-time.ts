@@ -51,5 +51,6 @@ export const formatHours = (hours: number) => `${hourCount(hours)} h`;
 
 /** "Tue 4 Mar 18:00" in the co-op's zone. */
 export function formatMoment(iso: string, zone: string): string {
-  return DateTime.fromISO(iso, { zone }).toFormat('ccc d LLL HH:mm');
+  // One locale, so the server's first render and the browser's agree.
+  return DateTime.fromISO(iso, { zone, locale: 'en-US' }).toFormat('ccc d LLL HH:mm');
 }

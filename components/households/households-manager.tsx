@@ -19,9 +19,15 @@ import type { HouseholdDto, PersonDto } from '@/lib/households/types';
 
 const ROLE_NAMES: Record<Role, string> = { coordinator: 'Coordinator', sugarmaker: 'Sugarmaker', member: 'Member' };
 
-export function HouseholdsManager() {
-  const households = useSWR<HouseholdDto[]>('/api/households', fetcher);
-  const staff = useSWR<PersonDto[]>('/api/people', fetcher);
+interface HouseholdsManagerProps {
+  /** The lists as the page was rendered with them on the server. */
+  initialHouseholds?: HouseholdDto[];
+  initialStaff?: PersonDto[];
+}
+
+export function HouseholdsManager({ initialHouseholds, initialStaff }: HouseholdsManagerProps) {
+  const households = useSWR<HouseholdDto[]>('/api/households', fetcher, { fallbackData: initialHouseholds });
+  const staff = useSWR<PersonDto[]>('/api/people', fetcher, { fallbackData: initialStaff });
   const refresh = () => Promise.all([households.mutate(), staff.mutate()]);
 
   if (households.error) return <Alert tone="danger">{(households.error as Error).message}</Alert>;

@@ -1,4 +1,5 @@
 import 'server-only';
+import { QueryTypes } from 'sequelize';
 import { db } from '@/db/models';
 import type { Ctx } from '@/lib/server/context';
 
@@ -8,23 +9,21 @@ import { notFound } from '@/lib/server/errors';
 import type { SeasonDto, EvaporatorDto } from './types';
 export type { SeasonDto, EvaporatorDto };
 
+/** The co-op's seasons, newest first: one query of plain rows. */
 export async function listSeasons(ctx: CoopScope): Promise<SeasonDto[]> {
-  const { Season } = db();
-  const rows = await Season.findAll({ where: { cooperativeId: ctx.cooperativeId }, order: [['startsOn', 'DESC']], transaction: ctx.transaction });
-  return rows.map((s) => ({
-    id: s.id,
-    label: s.label,
-    startsOn: s.startsOn,
-    endsOn: s.endsOn,
-    status: s.status,
-    fuelPriceCents: s.fuelPriceCents,
-  }));
+  return db().sequelize.query<SeasonDto>(
+    `SELECT id, label, starts_on AS "startsOn", ends_on AS "endsOn", status, fuel_price_cents AS "fuelPriceCents"
+       FROM seasons WHERE cooperative_id = $cooperativeId ORDER BY starts_on DESC`,
+    { bind: { cooperativeId: ctx.cooperativeId }, type: QueryTypes.SELECT, transaction: ctx.transaction },
+  );
 }
 
 export async function listEvaporators(ctx: CoopScope): Promise<EvaporatorDto[]> {
-  const { Evaporator } = db();
-  const rows = await Evaporator.findAll({ where: { cooperativeId: ctx.cooperativeId }, order: [['name', 'ASC']], transaction: ctx.transaction });
-  return rows.map((e) => ({ id: e.id, name: e.name, evaporationLph: e.evaporationLph, fuelKind: e.fuelKind }));
+  return db().sequelize.query<EvaporatorDto>(
+    `SELECT id, name, evaporation_lph AS "evaporationLph", fuel_kind AS "fuelKind"
+       FROM evaporators WHERE cooperative_id = $cooperativeId ORDER BY name`,
+    { bind: { cooperativeId: ctx.cooperativeId }, type: QueryTypes.SELECT, transaction: ctx.transaction },
+  );
 }
 
 /** The acting person's cooperative: the one loader for it. */
@@ -36,8 +35,9 @@ export async function getCooperative(ctx: CoopScope) {
 }
 
 /** Household ids and names only: what a sugarmaker needs to book for a household. */
-export async function listHouseholdNames(ctx: CoopScope) {
-  const { Household } = db();
-  const rows = await Household.findAll({ where: { cooperativeId: ctx.cooperativeId }, attributes: ['id', 'name'], order: [['name', 'ASC']], transaction: ctx.transaction });
-  return rows.map((h) => ({ id: h.id, name: h.name }));
+export async function listHouseholdNames(ctx: CoopScope): Promise<{ id: string; name: string }[]> {
+  return db().sequelize.query<{ id: string; name: string }>(
+    'SELECT id, name FROM households WHERE cooperative_id = $cooperativeId ORDER BY name',
+    { bind: { cooperativeId: ctx.cooperativeId }, type: QueryTypes.SELECT, transaction: ctx.transaction },
+  );
 }

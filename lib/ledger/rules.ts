@@ -115,7 +115,8 @@ export interface SettleInput {
 const read = (m: ReadonlyMap<string, number> | Record<string, number> | undefined, k: string) =>
   m === undefined ? 0 : m instanceof Map ? (m.get(k) ?? 0) : ((m as Record<string, number>)[k] ?? 0);
 
-const sumAscending = (xs: number[]) => [...xs].sort((a, b) => a - b).reduce((s, x) => s + x, 0);
+/** Sums in ascending order, so the same numbers always give the same sum to the last bit. */
+export const sumAscending = (xs: number[]) => [...xs].sort((a, b) => a - b).reduce((s, x) => s + x, 0);
 
 /**
  * The same runs split by raw litres boiled instead of sugar, per run and summed, so a
@@ -225,7 +226,7 @@ export function settle(input: SettleInput): { households: LedgerHousehold[]; tot
 }
 
 /** The contract's settlement row from a ledger row (figures rounded once, for the answer). */
-export function settlementRow(h: LedgerHousehold): SettlementHousehold {
+export function settlementRow(h: SettlementHousehold): SettlementHousehold {
   return {
     householdId: h.householdId,
     name: h.name,

@@ -1,11 +1,12 @@
 import 'server-only';
+import { QueryTypes } from 'sequelize';
 import { getSequelize } from '@/db';
 import { recordChange } from '@/lib/events';
 import { computeLedger, fail, insertSettlements, seasonOf, select, UUID } from './ledger-data';
 
 export { fail };
 import type { PersonCtx } from '@/lib/server/context';
-import { settlementRow } from './rules';
+import { round, settlementRow, sumAscending } from './rules';
 import { storedAllocation } from './allocate-run';
 import { enqueueStatements } from './statement-mail';
 import { loadStatement } from './statement-data';
@@ -39,13 +40,69 @@ export async function getLedger(ctx: LedgerContext, seasonId: string): Promise<L
   return forActor(ctx, await computeLedger(ctx, season));
 }
 
-/** GET /api/seasons/:id/settlement — the contract's shape; a member gets its own household only. */
+interface SettlementDbRow {
+  householdId: string | null;
+  name: string;
+  sapL: number;
+  sugarKg: number;
+  syrupMl: number;
+  fuelCents: number;
+  feeCents: number;
+}
+
+// One statement of plain rows, one per household: what the settlement needs and nothing of the
+// ledger's drill-downs. Sugar is summed in ascending order, as the ledger's rules sum it, so both
+// give the same figures to the last bit. No row at all: no such season in this co-op.
+const SETTLEMENT_SQL = `
+WITH s AS (
+  SELECT id FROM seasons WHERE id = $seasonId AND cooperative_id = $cooperativeId
+), a AS (
+  SELECT household_id, sum(sugar_kg ORDER BY sugar_kg) AS sugar_kg, sum(syrup_ml)::float8 AS syrup_ml, sum(fuel_cents)::float8 AS fuel_cents
+    FROM allocations WHERE cooperative_id = $cooperativeId AND season_id = $seasonId GROUP BY household_id
+), d AS (
+  SELECT household_id, sum(volume_l) AS sap_l
+    FROM sap_deliveries WHERE cooperative_id = $cooperativeId AND season_id = $seasonId AND status = 'accepted' GROUP BY household_id
+)
+SELECT h.id AS "householdId", h.name, coalesce(d.sap_l, 0) AS "sapL", coalesce(a.sugar_kg, 0) AS "sugarKg",
+       coalesce(a.syrup_ml, 0) AS "syrupMl", coalesce(a.fuel_cents, 0) AS "fuelCents", coalesce(f.fee_cents, 0) AS "feeCents"
+  FROM s
+  LEFT JOIN households h ON h.cooperative_id = $cooperativeId
+  LEFT JOIN a ON a.household_id = h.id
+  LEFT JOIN d ON d.household_id = h.id
+  LEFT JOIN season_fees f ON f.season_id = s.id AND f.household_id = h.id
+ ORDER BY lower(h.name)`;
+
+/**
+ * GET /api/seasons/:id/settlement — the contract's shape, from one query; a member gets its own
+ * household only (the totals stay the co-op's).
+ */
 export async function getSettlement(ctx: LedgerContext, seasonId: string): Promise<Settlement> {
-  const ledger = await getLedger(ctx, seasonId);
+  if (!UUID.test(seasonId)) throw fail('not_found', 'not_found', 'That season was not found.');
+  const rows = await getSequelize().query<SettlementDbRow>(SETTLEMENT_SQL, {
+    bind: { seasonId, cooperativeId: ctx.cooperativeId },
+    type: QueryTypes.SELECT,
+    transaction: ctx.transaction,
+  });
+  if (!rows.length) throw fail('not_found', 'not_found', 'That season was not found.');
+  const households = rows.filter((r): r is SettlementDbRow & { householdId: string } => r.householdId !== null);
+  const totalSugar = sumAscending(households.map((h) => h.sugarKg));
+  const own = ctx.actor.role === 'member' ? ctx.actor.householdId : undefined;
   return {
-    seasonId: ledger.seasonId,
-    households: ledger.households.map(settlementRow),
-    totals: { sugarKg: Math.round(ledger.totals.sugarKg * 10_000) / 10_000, syrupMl: ledger.totals.syrupMl, fuelCents: ledger.totals.fuelCents },
+    seasonId,
+    households: households
+      .filter((h) => own === undefined || h.householdId === own)
+      .map((h) =>
+        settlementRow({
+          ...h,
+          share: totalSugar > 0 ? h.sugarKg / totalSugar : 0,
+          dueCents: h.fuelCents + h.feeCents,
+        }),
+      ),
+    totals: {
+      sugarKg: round(totalSugar, 4),
+      syrupMl: households.reduce((t, h) => t + h.syrupMl, 0),
+      fuelCents: households.reduce((t, h) => t + h.fuelCents, 0),
+    },
   };
 }
 

@@ -1,5 +1,5 @@
 import 'server-only';
-import { Op, QueryTypes } from 'sequelize';
+import { QueryTypes } from 'sequelize';
 import { db } from '@/db/models';
 import type { Ctx } from '@/lib/server/context';
 import { planBoiling, type WaitingLot } from '@/lib/planning/rules';
@@ -8,66 +8,63 @@ import { spoilageDeadline } from '@/lib/sugar';
 import type { PlanningDto } from './types';
 export type { PlanningDto };
 
-/**
- * Accepted sap not yet boiled: the litres of every accepted lot of the open season not yet taken
- * into a run (rejected lots never count), each with its spoilage deadline from the co-op's
- * shelf-life settings.
- */
-export async function waitingLots(cooperativeId: string): Promise<WaitingLot[]> {
-  const rows = await db().sequelize.query<{
-    volumeL: number;
-    brix: number;
-    collectedOn: string;
-    sapTempC: number;
-    timeZone: string;
-    shelfDays: number;
-    warmAboveC: number;
-    warmShelfDays: number;
-  }>(
-    `SELECT d.volume_l - d.litres_boiled AS "volumeL", d.brix::float8 AS brix, d.collected_on AS "collectedOn", d.sap_temp_c AS "sapTempC",
-            c.time_zone AS "timeZone", c.shelf_days AS "shelfDays", c.warm_above_c AS "warmAboveC", c.warm_shelf_days AS "warmShelfDays"
-       FROM sap_deliveries d
-       JOIN seasons s ON s.id = d.season_id AND s.status = 'open'
-       JOIN cooperatives c ON c.id = d.cooperative_id
-      WHERE d.cooperative_id = :cooperativeId AND d.status = 'accepted' AND d.litres_boiled < d.volume_l`,
-    { replacements: { cooperativeId }, type: QueryTypes.SELECT },
-  );
-  return rows
-    .filter((r) => r.brix > 0)
-    .map((r) => ({
-      litres: r.volumeL,
-      brix: r.brix,
-      deadline: spoilageDeadline(collectionStart(r.collectedOn, r.timeZone), {
-        sapTempC: r.sapTempC,
-        shelfDays: r.shelfDays,
-        warmAboveC: r.warmAboveC,
-        warmShelfDays: Math.min(r.warmShelfDays, r.shelfDays),
-      }),
-    }));
+interface PlanningRow {
+  timeZone: string;
+  syrupBrix: number;
+  shelfDays: number;
+  warmAboveC: number;
+  warmShelfDays: number;
+  evaporatorId: string | null;
+  evaporationLph: number | null;
+  /** [litres left, °Brix, collected on, sap °C] of each waiting lot. */
+  lots: [number, number, string, number][] | null;
+  /** [starts, ends] of each booked slot still ahead, in epoch milliseconds. */
+  slots: [number, number][] | null;
 }
 
-/** The planning strip of the Boil calendar for a co-op's first evaporator. */
+// One statement: the co-op's settings, its first evaporator, the sap waiting and the booked time ahead.
+// Accepted sap not yet boiled counts: the litres of every accepted lot of the open season not yet
+// taken into a run (rejected lots never count).
+const PLANNING_SQL = `
+WITH e AS (
+  SELECT id, evaporation_lph FROM evaporators WHERE cooperative_id = $cooperativeId ORDER BY name LIMIT 1
+)
+SELECT c.time_zone AS "timeZone", c.syrup_brix AS "syrupBrix", c.shelf_days AS "shelfDays",
+       c.warm_above_c AS "warmAboveC", c.warm_shelf_days AS "warmShelfDays",
+       e.id AS "evaporatorId", e.evaporation_lph AS "evaporationLph",
+       (SELECT json_agg(json_build_array(d.volume_l - d.litres_boiled, d.brix::float8, d.collected_on, d.sap_temp_c))
+          FROM sap_deliveries d JOIN seasons s ON s.id = d.season_id AND s.status = 'open'
+         WHERE d.cooperative_id = c.id AND d.status = 'accepted' AND d.litres_boiled < d.volume_l AND d.brix > 0) AS lots,
+       (SELECT json_agg(json_build_array((extract(epoch FROM b.starts_at) * 1000)::float8, (extract(epoch FROM b.ends_at) * 1000)::float8))
+          FROM boil_slots b
+         WHERE b.cooperative_id = c.id AND b.evaporator_id = e.id AND b.status = 'booked' AND b.ends_at > $now) AS slots
+  FROM cooperatives c LEFT JOIN e ON true
+ WHERE c.id = $cooperativeId`;
+
+/** The planning strip of the Boil calendar for a co-op's first evaporator: one query, plain rows. */
 export async function getPlanning(ctx: Ctx, { now = new Date() }: { now?: Date } = {}): Promise<PlanningDto> {
-  const { Evaporator, BoilSlot, Cooperative } = db();
-  const { cooperativeId, transaction } = ctx;
-  const [coop, evaporator] = await Promise.all([
-    Cooperative.findByPk(cooperativeId, { transaction }),
-    Evaporator.findOne({ where: { cooperativeId }, order: [['name', 'ASC']], transaction }),
-  ]);
-  const lots = await waitingLots(cooperativeId);
-  const slots = evaporator
-    ? await BoilSlot.findAll({
-        where: { cooperativeId, evaporatorId: evaporator.id, status: 'booked', endsAt: { [Op.gt]: now } },
-        attributes: ['startsAt', 'endsAt'],
-        transaction,
-      })
-    : [];
+  const [row] = await db().sequelize.query<PlanningRow>(PLANNING_SQL, {
+    bind: { cooperativeId: ctx.cooperativeId, now: now.toISOString() },
+    type: QueryTypes.SELECT,
+    transaction: ctx.transaction,
+  });
+  const lots: WaitingLot[] = [];
+  if (row?.lots) {
+    const spoilage = { shelfDays: row.shelfDays, warmAboveC: row.warmAboveC, warmShelfDays: Math.min(row.warmShelfDays, row.shelfDays) };
+    // Lots share a few collection days: each day's start in the co-op's zone is worked out once.
+    const dayStarts = new Map<string, Date>();
+    for (const [litres, brix, collectedOn, sapTempC] of row.lots) {
+      let start = dayStarts.get(collectedOn);
+      if (!start) dayStarts.set(collectedOn, (start = collectionStart(collectedOn, row.timeZone)));
+      lots.push({ litres, brix, deadline: spoilageDeadline(start, { ...spoilage, sapTempC }) });
+    }
+  }
   const plan = planBoiling({
     lots,
-    slots: slots.map((s) => ({ startsAt: s.startsAt, endsAt: s.endsAt })),
-    evaporationLph: evaporator?.evaporationLph ?? 1,
-    syrupBrix: coop?.syrupBrix ?? 66.9,
+    slots: (row?.slots ?? []).map(([s, e]) => ({ startsAt: new Date(s), endsAt: new Date(e) })),
+    evaporationLph: row?.evaporationLph ?? 1,
+    syrupBrix: row?.syrupBrix ?? 66.9,
     now,
   });
-  return { ...plan, evaporatorId: evaporator?.id ?? null, evaporationLph: evaporator?.evaporationLph ?? null };
+  return { ...plan, evaporatorId: row?.evaporatorId ?? null, evaporationLph: row?.evaporationLph ?? null };
 }

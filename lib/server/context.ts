@@ -1,7 +1,7 @@
 import 'server-only';
 import type { Transaction } from 'sequelize';
 import { cache } from 'react';
-import { getToken } from 'next-auth/jwt';
+import { decode, getToken, type JWT, type JWTDecodeParams } from 'next-auth/jwt';
 import { redirect } from 'next/navigation';
 import { cookies, headers } from 'next/headers';
 import { env } from '@/lib/env';
@@ -40,8 +40,35 @@ export async function optionalContext(req?: Request): Promise<PersonCtx | null> 
   return req ? contextFrom(req as unknown as TokenSource) : renderContext();
 }
 
+// Decrypted session tokens by their text, until they expire: a token is immutable, so decrypting
+// it again on every request (a key derivation and a decryption) would only repeat the same answer.
+// Who the token speaks for is still read fresh from the database on every request.
+const decoded = new Map<string, { claims: JWT; until: number }>();
+const DECODED_MAX = 5_000;
+const DECODED_TTL_MS = 5 * 60_000;
+let decodedWith: JWTDecodeParams['secret'] | undefined;
+
+async function cachedDecode(params: JWTDecodeParams): Promise<JWT | null> {
+  const { token, secret } = params;
+  if (!token) return null;
+  if (secret !== decodedWith) {
+    decoded.clear();
+    decodedWith = secret;
+  }
+  const now = Date.now();
+  const hit = decoded.get(token);
+  if (hit && hit.until > now) return hit.claims;
+  const claims = await decode(params);
+  if (claims) {
+    const exp = typeof claims.exp === 'number' ? claims.exp * 1000 : Infinity;
+    if (decoded.size >= DECODED_MAX) decoded.clear();
+    decoded.set(token, { claims, until: Math.min(exp, now + DECODED_TTL_MS) });
+  }
+  return claims;
+}
+
 async function contextFrom(source: TokenSource): Promise<PersonCtx | null> {
-  const claims = await getToken({ req: source, secret: env().NEXTAUTH_SECRET });
+  const claims = await getToken({ req: source, secret: env().NEXTAUTH_SECRET, decode: cachedDecode });
   return personFromClaims(claims);
 }
 

@@ -1,6 +1,5 @@
 import 'server-only';
-import { DateTime } from 'luxon';
-import { Op, type Transaction } from 'sequelize';
+import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { db, type BoilSlot, type Cooperative } from '@/db/models';
 import { actorUserId, type Ctx } from '@/lib/server/context';
 import { registerConstraints, sqlState } from '@/lib/server/db-errors';
@@ -43,28 +42,52 @@ function toDto(slot: BoilSlot, householdName: string, actor: Actor, zone: string
   };
 }
 
-/** A query boundary: a day is the start of that day in the co-op's zone. */
-function boundary(value: string, zone: string): Date {
-  return /^\d{4}-\d{2}-\d{2}$/.test(value) ? DateTime.fromISO(value, { zone }).toJSDate() : new Date(value);
+interface SlotRow extends Omit<SlotDto, 'startsAt' | 'endsAt' | 'editable'> {
+  startsAt: Date;
+  endsAt: Date;
 }
 
-/** Active slots (booked or done) overlapping [from, to). */
+// A day boundary is the start of that day in the co-op's zone (PostgreSQL reads it there);
+// a full timestamp is taken as it is.
+const boundarySql = (param: string) =>
+  `CASE WHEN $${param} ~ '^\\d{4}-\\d{2}-\\d{2}$' THEN ($${param}::date)::timestamp AT TIME ZONE c.time_zone ELSE $${param}::timestamptz END`;
+
+const LIST_SLOTS_SQL = `
+SELECT b.id, b.evaporator_id AS "evaporatorId", b.household_id AS "householdId", h.name AS "householdName",
+       b.starts_at AS "startsAt", b.ends_at AS "endsAt", b.status, b.crew, b.expected_sap_l AS "expectedSapL", b.note,
+       c.time_zone AS "timeZone"
+  FROM cooperatives c
+  JOIN boil_slots b ON b.cooperative_id = c.id
+  JOIN households h ON h.id = b.household_id AND h.cooperative_id = b.cooperative_id
+ WHERE c.id = $cooperativeId AND b.status <> 'cancelled'
+   AND b.starts_at < ${boundarySql('to')} AND b.ends_at > ${boundarySql('from')}
+ ORDER BY b.starts_at`;
+
+/** Active slots (booked or done) overlapping [from, to): one query of plain rows. */
 export async function listSlots(ctx: Ctx, { from, to }: { from: string; to: string }): Promise<SlotDto[]> {
   authorize(ctx.actor, 'slot.list');
-  const { BoilSlot, Household } = db();
-  const coop = await getCooperative(ctx);
-  const slots = await BoilSlot.findAll({
+  const rows = await db().sequelize.query<SlotRow & { timeZone: string }>(LIST_SLOTS_SQL, {
+    bind: { cooperativeId: ctx.cooperativeId, from, to },
+    type: QueryTypes.SELECT,
     transaction: ctx.transaction,
-    where: {
-      cooperativeId: ctx.cooperativeId,
-      status: { [Op.ne]: 'cancelled' },
-      startsAt: { [Op.lt]: boundary(to, coop.timeZone) },
-      endsAt: { [Op.gt]: boundary(from, coop.timeZone) },
-    },
-    include: [{ model: Household, as: 'household', attributes: ['name'] }],
-    order: [['startsAt', 'ASC']],
   });
-  return slots.map((s) => toDto(s, (s as unknown as { household: { name: string } }).household.name, ctx.actor, coop.timeZone));
+  return rows.map(({ timeZone, ...slot }) => {
+    // Other households' slots show only who crews them.
+    const own = can(ctx.actor, 'slot.seeDetails', slot);
+    return {
+      id: slot.id,
+      evaporatorId: slot.evaporatorId,
+      householdId: slot.householdId,
+      householdName: slot.householdName,
+      startsAt: toZonedIso(slot.startsAt, timeZone),
+      endsAt: toZonedIso(slot.endsAt, timeZone),
+      status: slot.status,
+      crew: own ? slot.crew : [],
+      expectedSapL: own ? slot.expectedSapL : null,
+      note: own ? slot.note : null,
+      editable: own && slot.status === 'booked',
+    };
+  });
 }
 
 /** The next booked slots, for the Today page (one household's, or everyone's). */

@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import { requireContext } from '@/lib/server/context';
 import { getCooperative, listEvaporators, listHouseholdNames, listSeasons } from '@/lib/coop/service';
+import { getPlanning } from '@/lib/planning/service';
 import { DateTime } from 'luxon';
 import { clockLabel } from '@/lib/time';
 import { BoilCalendar } from '@/components/calendar/boil-calendar';
@@ -11,11 +12,13 @@ export const metadata: Metadata = { title: 'Boil calendar' };
 export default async function CalendarPage() {
   const ctx = await requireContext({ onFail: 'redirect' });
   const user = ctx.actor;
-  const [coop, evaporators, seasons, households] = await Promise.all([
+  // The planning strip's first figures come with the page, so no placeholder moves it.
+  const [coop, evaporators, seasons, households, planning] = await Promise.all([
     getCooperative(ctx),
     listEvaporators(ctx),
     listSeasons(ctx),
     listHouseholdNames(ctx),
+    getPlanning(ctx),
   ]);
   const staff = user.role === 'coordinator' || user.role === 'sugarmaker';
   const season = seasons.find((s) => s.status === 'open') ?? seasons.find((s) => s.status === 'planned') ?? null;
@@ -46,7 +49,7 @@ export default async function CalendarPage() {
             : 'No season is open, so no slots can be booked yet.'}
         </p>
       </div>
-      <BoilCalendar setup={setup} />
+      <BoilCalendar setup={setup} initialPlanning={planning} />
     </div>
   );
 }
