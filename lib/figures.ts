@@ -1,13 +1,5 @@
-import {
-  celsiusToFahrenheit,
-  formatBrix,
-  formatMass,
-  formatTemperature,
-  formatVolume,
-  kgToPounds,
-  litresToGallons,
-  type UnitSystem,
-} from './sugar/units';
+import { celsiusToFahrenheit, kgToPounds, litresToGallons, type UnitSystem } from './sugar/units';
+import { formatBrix, formatMass, formatTemperature, formatVolume } from './format/units';
 
 /**
  * How precisely each kind of figure is shown on a screen, decided in one place by its unit and

@@ -12,7 +12,8 @@ import { toast } from '@/components/ui/toaster';
 import { ApiClientError, apiSend, fetcher } from '@/lib/client/api';
 import { parseNumber } from '@/lib/deliveries/form';
 import type { DeliveryDetailDto } from '@/lib/deliveries/types';
-import { formatTemperature, gallonsToLitres, litresToGallons, type UnitSystem } from '@/lib/sugar';
+import { gallonsToLitres, litresToGallons, type UnitSystem } from '@/lib/sugar';
+import { formatTemperature } from '@/lib/format/units';
 import { brix as fmtBrix, formatDay, formatWhen, mass, vol, volumeUnit } from './format';
 
 export interface DeliveryDetailsProps {

@@ -1,4 +1,5 @@
-import { formatVolume, litresToGallons, type UnitSystem } from '@/lib/sugar';
+import { litresToGallons, type UnitSystem } from '@/lib/sugar';
+import { formatVolume } from '@/lib/format/units';
 import { showBrix, showMass, showVolume } from '@/lib/figures';
 
 const dateTimeFormats = new Map<string, Intl.DateTimeFormat>();

@@ -3,7 +3,8 @@
 import { clock, duration, STATE_LABEL } from '@/components/queue/format';
 import { useLiveQueue } from '@/components/queue/use-live-queue';
 import type { QueueSnapshot } from '@/lib/queue/types';
-import { GRADE_CLASS_INFO, formatBrix, type UnitSystem } from '@/lib/sugar';
+import { GRADE_CLASS_INFO, type UnitSystem } from '@/lib/sugar';
+import { formatBrix } from '@/lib/format/units';
 import { cn } from '@/lib/utils';
 import { showSyrup, showVolume } from '@/lib/figures';
 

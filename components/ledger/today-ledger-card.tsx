@@ -2,7 +2,7 @@ import Link from 'next/link';
 import { getLedger, getStatement, statementIdFor } from '@/lib/ledger/service';
 import type { PersonCtx } from '@/lib/server/context';
 import { formatShare, formatSyrup } from '@/lib/ledger/format';
-import { formatMoney } from '@/lib/sugar';
+import { formatMoney } from '@/lib/format/units';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { buttonVariants } from '@/components/ui/button';
 import { showMass } from '@/lib/figures';

@@ -3,7 +3,8 @@
 import { Alert } from '@/components/ui/alert';
 import { Badge } from '@/components/ui/badge';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
-import { GRADE_CLASS_INFO, formatBrix, type UnitSystem } from '@/lib/sugar';
+import { GRADE_CLASS_INFO, type UnitSystem } from '@/lib/sugar';
+import { formatBrix } from '@/lib/format/units';
 import type { QueueRun, QueueSnapshot } from '@/lib/queue/types';
 import { cn } from '@/lib/utils';
 import { clock, duration, STATE_BADGE, STATE_LABEL } from './format';

@@ -2,7 +2,8 @@ import { Badge } from '@/components/ui/badge';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { clock } from '@/components/queue/format';
 import type { RunDto } from '@/lib/runs/types';
-import { GRADE_CLASS_INFO, formatBrix, formatMoney, type GradeClass, type UnitSystem } from '@/lib/sugar';
+import { GRADE_CLASS_INFO, type GradeClass, type UnitSystem } from '@/lib/sugar';
+import { formatBrix, formatMoney } from '@/lib/format/units';
 import { showSyrup, showVolume } from '@/lib/figures';
 
 interface FinishedRunsProps {

@@ -15,7 +15,8 @@ import { useLiveQueue } from '@/components/queue/use-live-queue';
 import { ApiClientError, apiSend, applyFieldErrors } from '@/lib/client/api';
 import type { QueueSnapshot } from '@/lib/queue/types';
 import type { RunDto } from '@/lib/runs/types';
-import { GRADE_CLASS_INFO, fahrenheitToCelsius, formatBrix, formatMoney, gallonsToLitres, gradeClass, type UnitSystem } from '@/lib/sugar';
+import { GRADE_CLASS_INFO, fahrenheitToCelsius, gallonsToLitres, gradeClass, type UnitSystem } from '@/lib/sugar';
+import { formatBrix, formatMoney } from '@/lib/format/units';
 import { FinishedRuns } from './finished-runs';
 import { showSyrup, showVolume } from '@/lib/figures';
 

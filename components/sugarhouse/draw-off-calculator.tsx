@@ -4,15 +4,8 @@ import { useId, useState } from 'react';
 import { Field, Input, fieldA11y } from '@/components/ui/input';
 import { Select } from '@/components/ui/select';
 import { Table, TBody, TD, TH, THead, TR } from '@/components/ui/table';
-import {
-  celsiusToFahrenheit,
-  drawOffTargetC,
-  formatBrix,
-  formatTemperature,
-  hydrometerReadingBrix,
-  waterBoilingPointC,
-  type UnitSystem,
-} from '@/lib/sugar';
+import { celsiusToFahrenheit, drawOffTargetC, hydrometerReadingBrix, waterBoilingPointC, type UnitSystem } from '@/lib/sugar';
+import { formatBrix, formatTemperature } from '@/lib/format/units';
 
 interface DrawOffCalculatorProps {
   elevationM: number;

@@ -4,7 +4,8 @@ import { DateTime } from 'luxon';
 import { db } from '@/db/models';
 import { appUrl } from '@/lib/env';
 import { enqueueMail } from '@/lib/mail/outbox';
-import { formatBrix, formatTemperature, formatVolume, type UnitSystem } from '@/lib/sugar';
+import { type UnitSystem } from '@/lib/sugar';
+import { formatBrix, formatTemperature, formatVolume } from '@/lib/format/units';
 
 export interface RejectedLot {
   id: string;

@@ -1,4 +1,5 @@
-import { formatMoney, GRADE_CLASS_INFO, GRADE_CLASSES, type UnitSystem } from '@/lib/sugar';
+import { GRADE_CLASS_INFO, GRADE_CLASSES, type UnitSystem } from '@/lib/sugar';
+import { formatMoney } from '@/lib/format/units';
 import type { Statement, SyrupByClass } from './types';
 import { showBrix, showMass, showSyrup, showVolume } from '@/lib/figures';
 

@@ -1,6 +1,6 @@
 import path from 'node:path';
 import PDFDocument from 'pdfkit';
-import { formatMass, formatMoney, formatVolume } from '@/lib/sugar';
+import { formatMass, formatMoney, formatVolume } from '@/lib/format/units';
 import { formatShare, formatSyrup, statementLines } from './format';
 import type { Ledger, Statement } from './types';
 

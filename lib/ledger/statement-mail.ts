@@ -5,7 +5,7 @@ import { getSequelize } from '@/db';
 import { appUrl, env } from '@/lib/env';
 import { mailQueue } from '@/lib/mail/outbox';
 import { mailTransport } from '@/lib/mail/transport';
-import { formatMoney } from '@/lib/sugar/units';
+import { formatMoney } from '@/lib/format/units';
 import { statementLines } from './format';
 import { statementPdf } from './pdf';
 import { loadStatement } from './statement-data';

@@ -3,7 +3,7 @@ import { requireContext } from '@/lib/server/context';
 import { getCooperative, listEvaporators, listSeasons } from '@/lib/coop/service';
 import { currentSnapshot } from '@/lib/queue/service';
 import { listRuns } from '@/lib/runs/service';
-import { formatBrix } from '@/lib/sugar';
+import { formatBrix } from '@/lib/format/units';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { DrawOffCalculator } from '@/components/sugarhouse/draw-off-calculator';
 import { RunsDesk } from '@/components/runs/runs-desk';

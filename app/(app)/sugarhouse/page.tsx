@@ -1,7 +1,8 @@
 import type { Metadata } from 'next';
 import { requireContext } from '@/lib/server/context';
 import { getCooperative, listEvaporators } from '@/lib/coop/service';
-import { GRADE_CLASSES, GRADE_CLASS_INFO, formatBrix, standardPressureKPa } from '@/lib/sugar';
+import { GRADE_CLASSES, GRADE_CLASS_INFO, standardPressureKPa } from '@/lib/sugar';
+import { formatBrix } from '@/lib/format/units';
 import { showRate } from '@/lib/figures';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { Alert } from '@/components/ui/alert';

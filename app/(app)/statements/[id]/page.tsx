@@ -4,7 +4,7 @@ import { notFound } from 'next/navigation';
 import { requireContext } from '@/lib/server/context';
 import { getStatement } from '@/lib/ledger/service';
 import { statementLines } from '@/lib/ledger/format';
-import { formatMoney } from '@/lib/sugar';
+import { formatMoney } from '@/lib/format/units';
 import { Card, CardBody, CardHeader, CardTitle } from '@/components/ui/card';
 import { Alert } from '@/components/ui/alert';
 import { Badge } from '@/components/ui/badge';
