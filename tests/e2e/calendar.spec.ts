@@ -7,6 +7,9 @@ import { attachmentText, clearMail, waitForMail } from '../mailbox';
 const ZONE = 'America/New_York';
 const DAYS_AHEAD = 4;
 
+// Several sign-ins, page loads and e-mails per test: a shared two-core machine needs more than the default minute.
+test.describe.configure({ timeout: 240_000 });
+
 const bookingDay = () => DateTime.now().setZone(ZONE).startOf('day').plus({ days: DAYS_AHEAD });
 
 /** Opens the Boil calendar in day view on the booking day, with live updates connected. */
