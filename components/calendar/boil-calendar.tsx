@@ -383,7 +383,9 @@ export function BoilCalendar({ setup, initialPlanning }: { setup: CalendarSetup;
               eventDrop={(arg) => void move(arg)}
               eventResize={(arg) => void move(arg)}
               datesSet={onDatesSet}
-              viewDidMount={focusableScrollers}
+              // Slots are reached with Tab and opened with Enter, which also makes the time
+              // grid's scrolling box reachable by keyboard.
+              eventInteractive
             />
           )}
         </div>
@@ -440,16 +442,4 @@ function titleOf(type: ViewName, start: Date, end: Date, zone: string): string {
   if (s.hasSame(last, 'month')) return `${s.toFormat('d')} – ${last.toFormat('d LLL yyyy')}`;
   if (s.hasSame(last, 'year')) return `${s.toFormat('d LLL')} – ${last.toFormat('d LLL yyyy')}`;
   return `${s.toFormat('d LLL yyyy')} – ${last.toFormat('d LLL yyyy')}`;
-}
-
-/**
- * The calendar's time grid scrolls inside a box of its own; a keyboard user reaches it with Tab
- * and scrolls it with the arrow keys, and a screen reader hears what it holds.
- */
-function focusableScrollers({ el }: { el: HTMLElement }) {
-  el.querySelectorAll<HTMLElement>('.fc-scroller-liquid-absolute').forEach((box) => {
-    box.tabIndex = 0;
-    box.setAttribute('role', 'region');
-    box.setAttribute('aria-label', 'Boil slots by time of day');
-  });
 }
