@@ -3,7 +3,7 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { getSequelize } from '@/db';
 import { appUrl, env } from '@/lib/env';
-import { mailQueue } from '@/lib/mail/outbox';
+import { createQueueOnce, mailQueue } from '@/lib/mail/outbox';
 import { mailTransport } from '@/lib/mail/transport';
 import { formatMoney } from '@/lib/format/units';
 import { statementLines } from './format';
@@ -23,8 +23,14 @@ interface PgClientLike {
 const globalForQueue = globalThis as unknown as { __brixhouseStatementQueue?: Promise<void> };
 
 async function ensureQueue() {
-  globalForQueue.__brixhouseStatementQueue ??= mailQueue().then((boss) => boss.createQueue(STATEMENT_QUEUE));
-  await globalForQueue.__brixhouseStatementQueue;
+  globalForQueue.__brixhouseStatementQueue ??= mailQueue().then((boss) => createQueueOnce(boss, STATEMENT_QUEUE));
+  try {
+    await globalForQueue.__brixhouseStatementQueue;
+  } catch (err) {
+    // Not kept: the next caller tries again.
+    globalForQueue.__brixhouseStatementQueue = undefined;
+    throw err;
+  }
 }
 
 /** Queues one job per statement inside the settlement's transaction (nothing if it rolls back). */

@@ -16,15 +16,37 @@ export interface OutgoingMail {
 
 const globalForBoss = globalThis as unknown as { __brixhouseBoss?: Promise<PgBoss> };
 
+/**
+ * Creates a pg-boss queue if it is not there. Creating is idempotent, but two server processes
+ * starting together on a fresh database can deadlock on pg-boss's queue table (40P01) or race
+ * on its key (23505): the loser tries again, a few times, after a short random pause.
+ */
+export async function createQueueOnce(boss: PgBoss, name: string, attempts = 6): Promise<void> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      await boss.createQueue(name);
+      return;
+    } catch (err) {
+      const code = (err as { code?: string }).code;
+      if (attempt >= attempts || !(code === '40P01' || code === '40001' || code === '23505')) throw err;
+      await new Promise((r) => setTimeout(r, 50 + Math.random() * 200 * attempt));
+    }
+  }
+}
+
 /** The queue of outgoing mail, kept in PostgreSQL by pg-boss (its own schema "pgboss"). */
 export function mailQueue(): Promise<PgBoss> {
   globalForBoss.__brixhouseBoss ??= (async () => {
     const boss = new PgBoss({ connectionString: env().DATABASE_URL, max: 4, supervise: false, schedule: false });
     boss.on('error', (err) => console.error('mail queue:', err.message));
     await boss.start();
-    await boss.createQueue(MAIL_QUEUE);
+    await createQueueOnce(boss, MAIL_QUEUE);
     return boss;
   })();
+  // A failed start is not kept: the next caller tries again.
+  globalForBoss.__brixhouseBoss.catch(() => {
+    globalForBoss.__brixhouseBoss = undefined;
+  });
   return globalForBoss.__brixhouseBoss;
 }
 
