@@ -283,6 +283,9 @@ export function BoilCalendar({ setup, initialPlanning }: { setup: CalendarSetup;
 
   const activeView = view?.type ?? (narrow ? 'timeGridDay' : 'timeGridWeek');
   const unit = VIEWS.find((v) => v.name === activeView)?.unit ?? 'week';
+  // The calendar itself loads on demand: until it has drawn its first dates, the controls that
+  // drive it would do nothing, so they wait (disabled) rather than lose a tap.
+  const ready = view !== null;
 
   return (
     <div className="flex flex-col gap-4">
@@ -294,13 +297,13 @@ export function BoilCalendar({ setup, initialPlanning }: { setup: CalendarSetup;
             {view?.title ?? 'Boil slots'}
           </h2>
           <div role="group" aria-label="Move through the calendar" className="flex gap-1">
-            <Button variant="secondary" size="sm" aria-label={`Previous ${unit}`} onClick={() => api()?.prev()}>
+            <Button variant="secondary" size="sm" aria-label={`Previous ${unit}`} disabled={!ready} onClick={() => api()?.prev()}>
               <Chevron direction="left" />
             </Button>
-            <Button variant="secondary" size="sm" aria-label={`Next ${unit}`} onClick={() => api()?.next()}>
+            <Button variant="secondary" size="sm" aria-label={`Next ${unit}`} disabled={!ready} onClick={() => api()?.next()}>
               <Chevron direction="right" />
             </Button>
-            <Button variant="secondary" size="sm" onClick={() => api()?.today()}>
+            <Button variant="secondary" size="sm" disabled={!ready} onClick={() => api()?.today()}>
               Today
             </Button>
           </div>
@@ -315,6 +318,7 @@ export function BoilCalendar({ setup, initialPlanning }: { setup: CalendarSetup;
                 size="sm"
                 variant={activeView === v.name ? 'primary' : 'ghost'}
                 aria-pressed={activeView === v.name}
+                disabled={!ready}
                 onClick={() => api()?.changeView(v.name)}
               >
                 {v.label}
