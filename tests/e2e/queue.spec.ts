@@ -92,6 +92,11 @@ test('the sugarhouse display updates when a draw-off is recorded on the Runs scr
   await screen.screenshot({ path: '.tmp/screens/display-1920.png' });
   await runs.screenshot({ path: '.tmp/screens/runs-1024.png', fullPage: true });
 
+  // The sugarmaker finishes the run (it is then split; a season with a run still boiling cannot close).
+  await panel.getByRole('button', { name: 'Finish run', exact: true }).click();
+  await panel.getByRole('button', { name: /^Yes, finish run \d{4}-\d{3}$/ }).click();
+  await expect(runs.getByTestId('running-run')).toHaveCount(0);
+
   // Revoked: the page is gone.
   await coordinator.page.goto('/settings');
   await coordinator.page.getByRole('button', { name: 'Revoke Sugarhouse TV' }).first().click();
