@@ -10,8 +10,11 @@ if (existsSync(vitestFile)) {
   const v = JSON.parse(readFileSync(vitestFile, 'utf8'));
   passed += v.numPassedTests ?? 0;
   failed += v.numFailedTests ?? 0;
-  // A test file that could not even load counts as a failure of its own.
-  const brokenFiles = (v.testResults ?? []).filter((f) => f.status === 'failed' && (f.assertionResults ?? []).length === 0).length;
+  // A test file that failed with no failed test of its own (it could not load, or a beforeAll or
+  // afterAll hook failed and its tests were skipped) counts as a failure of its own.
+  const brokenFiles = (v.testResults ?? []).filter(
+    (f) => f.status === 'failed' && !(f.assertionResults ?? []).some((a) => a.status === 'failed'),
+  ).length;
   failed += brokenFiles;
   notes.push(`vitest: ${v.numPassedTests} passed, ${v.numFailedTests + brokenFiles} failed`);
 } else {
