@@ -6,6 +6,9 @@ import { registerConstraints, sqlState } from '@/lib/server/db-errors';
 import pg from 'pg';
 import { BASE_URL, TEST_DATABASE_URL } from '../test-env';
 import { signedIn, type Client } from './http';
+
+/** Next year's number: an impossible day in it (30 February) is never a real date, whenever the test runs. */
+const NEXT_YEAR = DateTime.now().year + 1;
 import { closeTestDb, rows, testDb } from './db';
 import { fillPath, routeHandlers } from './routes';
 
@@ -219,7 +222,7 @@ const CASES: Case[] = [
   {
     state: '22008',
     what: 'a day that does not exist (30 February)',
-    raise: () => provoke([], "SELECT '2027-02-30T09:00:00-05:00'::timestamptz"),
+    raise: () => provoke([], `SELECT '${NEXT_YEAR}-02-30T09:00:00-05:00'::timestamptz`),
     expected: { status: 422, code: 'invalid_date' },
   },
   {
@@ -339,7 +342,7 @@ describe('over HTTP: bad input answers 4xx and changes nothing', () => {
     const start = day().plus({ days: 30, hours: 9 });
     const slotBody = { evaporatorId: slot.evaporator_id, householdId: household, startsAt: start.toISO(), endsAt: start.plus({ hours: 3 }).toISO() };
 
-    let res = await refused('POST', '/api/slots', { ...slotBody, startsAt: '2027-02-30T09:00:00-05:00' });
+    let res = await refused('POST', '/api/slots', { ...slotBody, startsAt: `${NEXT_YEAR}-02-30T09:00:00-05:00` });
     expect(res.status).toBe(422);
     expect(Object.keys(res.body.error.fields)).toContain('startsAt');
 
@@ -347,11 +350,11 @@ describe('over HTTP: bad input answers 4xx and changes nothing', () => {
     expect(res.status).toBe(422);
     expect(Object.keys(res.body.error.fields)).toContain('endsAt');
 
-    res = await refused('GET', `/api/slots?from=2026-13-45&to=${day().plus({ days: 7 }).toISODate()}`);
+    res = await refused('GET', `/api/slots?from=${NEXT_YEAR}-13-45&to=${day().plus({ days: 7 }).toISODate()}`);
     expect(res.status).toBe(422);
     expect(Object.keys(res.body.error.fields)).toContain('from');
 
-    res = await refused('POST', '/api/deliveries', { householdId: household, volumeL: 120, brix: 2.1, sapTempC: 3, collectedOn: '2026-02-30', clarity: 'clear', contamination: 'none', idempotencyKey: `error-mapping-${Date.now()}` });
+    res = await refused('POST', '/api/deliveries', { householdId: household, volumeL: 120, brix: 2.1, sapTempC: 3, collectedOn: `${NEXT_YEAR}-02-30`, clarity: 'clear', contamination: 'none', idempotencyKey: `error-mapping-${Date.now()}` });
     expect(res.status).toBe(422);
     expect(Object.keys(res.body.error.fields)).toContain('collectedOn');
   });
