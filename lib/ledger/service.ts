@@ -11,6 +11,7 @@ import { storedAllocation } from './allocate-run';
 import { enqueueStatements } from './statement-mail';
 import { loadStatement } from './statement-data';
 import type { Ledger, Settlement, Statement } from './types';
+import type { SeasonDto } from '@/lib/coop/types';
 
 /** Who acts (a signed-in person) and for which co-op; `transaction` when the caller already holds one. */
 export type LedgerContext = PersonCtx;
@@ -106,16 +107,11 @@ export async function getSettlement(ctx: LedgerContext, seasonId: string): Promi
   };
 }
 
-export interface SeasonDto {
-  id: string;
-  label: string;
-  startsOn: string;
-  endsOn: string;
-  status: string;
-}
+/** What closing answers: the season as the co-op's season list has it, less its fuel price. */
+type ClosedSeason = Omit<SeasonDto, 'fuelPriceCents'>;
 
 /** POST /api/seasons/:id/close — no more lots or runs; a running run must be finished first. */
-export async function closeSeason(ctx: LedgerContext, seasonId: string): Promise<SeasonDto> {
+export async function closeSeason(ctx: LedgerContext, seasonId: string): Promise<ClosedSeason> {
   requireCoordinator(ctx, 'close a season');
   return getSequelize().transaction(async (transaction) => {
     const tctx = { ...ctx, transaction };
