@@ -294,7 +294,7 @@ async function runs({ q, sequelize, transaction, spec, cooperativeId, openSeason
           made AS (
             INSERT INTO boil_runs (cooperative_id, season_id, evaporator_id, run_number, lot_code, status, started_at, finished_at,
                                    started_by_id, finished_by_id)
-            SELECT :cooperativeId, :openSeasonId, e.id, p.r, :year || '-' || lpad(p.r::text, 3, '0'), 'finished', p.started_at,
+            SELECT :cooperativeId, :openSeasonId, e.id, p.r, :year || '-' || lpad(p.r::text, greatest(3, length(p.r::text)), '0'), 'finished', p.started_at,
                    least(p.started_at + interval '3 hours', :now::timestamptz), (SELECT id FROM sm), (SELECT id FROM sm)
               FROM planned p JOIN e ON e.k = (p.r - 1) % :evaporators
             RETURNING id, run_number, started_at)
