@@ -16,7 +16,13 @@ export type ChangeEvent =
   | { type: 'run.started' | 'run.finished'; runId: string }
   | { type: 'run.input'; runId: string; deliveryId: string }
   | { type: 'run.draw'; runId: string; drawId: string }
-  | { type: 'run.fuel'; runId: string; fuelId: string };
+  | { type: 'run.fuel'; runId: string; fuelId: string }
+  | { type: 'run.reopened'; runId: string }
+  | { type: 'season.closed' | 'season.settled'; seasonId: string }
+  | { type: 'season.fee'; seasonId: string; householdId: string }
+  | { type: 'payment.received' | 'statement.sent'; settlementId: string }
+  | { type: 'household.added'; householdId: string }
+  | { type: 'settings.changed' };
 
 export type ChangeEventType = ChangeEvent['type'];
 

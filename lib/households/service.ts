@@ -9,6 +9,7 @@ import { AppError, conflict, forbidden, invalidField, notFound } from '@/lib/ser
 import { authorize } from '@/lib/server/policies';
 import { withTransaction } from '@/lib/server/tx';
 import { enqueueMail } from '@/lib/mail/outbox';
+import { recordChange } from '@/lib/events';
 import { disconnectPerson } from '@/lib/realtime';
 import { welcomeMail } from '@/lib/mail/templates';
 import type { HouseholdInput, PersonInput, RoleChange } from '@/lib/households/schema';
@@ -57,6 +58,7 @@ export async function createHousehold(ctx: Ctx, input: HouseholdInput): Promise<
   const { Household } = db();
   return withTransaction(ctx, async ({ cooperativeId, transaction }) => {
     const h = await Household.create({ cooperativeId, name: input.name }, { transaction });
+    await recordChange({ cooperativeId, transaction }, { type: 'household.added', householdId: h.id });
     return { id: h.id, name: h.name, people: [] };
   });
 }

@@ -32,13 +32,16 @@ export interface SeasonRow {
   unitSystem: 'metric' | 'us';
   timeZone: string;
   cooperativeName: string;
+  /** The co-op's change version when the row was read (every write the ledger shows bumps it). */
+  changeVersion: string;
 }
 
 export async function seasonOf(ctx: LedgerReadContext, seasonId: string, { lock = false } = {}): Promise<SeasonRow> {
   if (!UUID.test(seasonId)) throw fail('not_found', 'not_found', 'That season was not found.');
   const [season] = await select<SeasonRow>(
     `SELECT s.id, s.label, s.status, s.starts_on AS "startsOn", s.ends_on AS "endsOn", c.currency,
-            c.unit_system AS "unitSystem", c.time_zone AS "timeZone", c.name AS "cooperativeName"
+            c.unit_system AS "unitSystem", c.time_zone AS "timeZone", c.name AS "cooperativeName",
+            c.change_version::text AS "changeVersion"
        FROM seasons s JOIN cooperatives c ON c.id = s.cooperative_id
       WHERE s.id = :seasonId AND s.cooperative_id = :cooperativeId ${lock ? 'FOR UPDATE OF s' : ''}`,
     { seasonId, cooperativeId: ctx.cooperativeId },

@@ -12,6 +12,7 @@ import { enqueueStatements } from './statement-mail';
 import { loadStatement } from './statement-data';
 import type { Ledger, Settlement, Statement } from './types';
 import type { SeasonDto } from '@/lib/coop/types';
+import { deepFreeze, VersionedCache } from '@/lib/server/versioned-cache';
 
 /** Who acts (a signed-in person) and for which co-op; `transaction` when the caller already holds one. */
 export type LedgerContext = PersonCtx;
@@ -35,10 +36,39 @@ function forActor(ctx: LedgerContext, ledger: Ledger): Ledger {
   };
 }
 
-/** GET /api/seasons/:id/ledger */
-export async function getLedger(ctx: LedgerContext, seasonId: string): Promise<Ledger> {
+/** The whole co-op's ledger and its JSON text, built once per co-op change version. */
+interface BuiltLedger {
+  ledger: Ledger;
+  json: string;
+}
+
+// On globalThis so the route handlers' and the pages' bundles share one cache per process.
+// About 3 bytes of memory per character of JSON (the text and the objects it came from).
+const globalForLedgers = globalThis as unknown as { __brixhouseLedgers?: VersionedCache<BuiltLedger> };
+const ledgers = (globalForLedgers.__brixhouseLedgers ??= new VersionedCache<BuiltLedger>(48 * 2 ** 20, (b) => 3 * b.json.length));
+
+/**
+ * The ledger as the acting person may see it, with its JSON text. Every write the ledger shows
+ * (lots, runs, fees, payments, statements sent, households, the season's status) bumps the
+ * co-op's change version in its own transaction; the ledger is read after the version, so one
+ * built at that version or later holds every change up to it, and is shared until the next
+ * change. Inside a caller's transaction it is built afresh.
+ */
+export async function ledgerView(ctx: LedgerContext, seasonId: string): Promise<BuiltLedger> {
   const season = await seasonOf(ctx, seasonId);
-  return forActor(ctx, await computeLedger(ctx, season));
+  const build = async (): Promise<BuiltLedger> => {
+    const ledger = deepFreeze(await computeLedger(ctx, season));
+    return { ledger, json: JSON.stringify(ledger) };
+  };
+  const whole = ctx.transaction ? await build() : await ledgers.get(`${ctx.cooperativeId}:${season.id}`, season.changeVersion, build);
+  if (ctx.actor.role !== 'member') return whole;
+  const own = forActor(ctx, whole.ledger);
+  return { ledger: own, json: JSON.stringify(own) };
+}
+
+/** GET /api/seasons/:id/ledger (as data; the route sends `ledgerView`'s text). */
+export async function getLedger(ctx: LedgerContext, seasonId: string): Promise<Ledger> {
+  return (await ledgerView(ctx, seasonId)).ledger;
 }
 
 interface SettlementDbRow {
@@ -192,6 +222,7 @@ export async function setSeasonFee(ctx: LedgerContext, seasonId: string, househo
        ON CONFLICT (season_id, household_id) DO UPDATE SET fee_cents = EXCLUDED.fee_cents, updated_at = now()`,
       { replacements: { seasonId, cooperativeId: ctx.cooperativeId, householdId, feeCents }, transaction },
     );
+    await recordChange({ cooperativeId: ctx.cooperativeId, transaction }, { type: 'season.fee', seasonId, householdId });
     return { seasonId, householdId, feeCents };
   });
 }

@@ -2,6 +2,7 @@
 // under plain Node.
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { getSequelize } from '@/db';
+import { recordChange } from '@/lib/events';
 import { appUrl, env } from '@/lib/env';
 import { createQueueOnce, mailQueue } from '@/lib/mail/outbox';
 import { mailTransport } from '@/lib/mail/transport';
@@ -121,6 +122,7 @@ export async function deliverStatement(settlementId: string, sequelize: Sequeliz
       });
     }
     await sequelize.query(`UPDATE settlements SET sent_at = now() WHERE id = :settlementId`, { replacements: { settlementId }, transaction });
+    await recordChange({ cooperativeId: row.cooperativeId, transaction }, { type: 'statement.sent', settlementId });
     return 'sent';
   });
 }

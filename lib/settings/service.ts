@@ -1,5 +1,6 @@
 import 'server-only';
 import { db } from '@/db/models';
+import { recordChange } from '@/lib/events';
 import type { Ctx } from '@/lib/server/context';
 import { notFound } from '@/lib/server/errors';
 import { authorize } from '@/lib/server/policies';
@@ -35,6 +36,8 @@ export async function updateSettings(ctx: Ctx, input: SettingsInput): Promise<Se
     const coop = await Cooperative.findByPk(cooperativeId, { transaction, lock: transaction.LOCK.UPDATE });
     if (!coop) throw notFound('Your cooperative');
     await coop.update(input, { transaction });
+    // The queue's spoil flags and the draw-off target follow these settings: tell the screens.
+    await recordChange({ cooperativeId, transaction }, { type: 'settings.changed' });
     return pick(coop);
   });
 }

@@ -204,3 +204,32 @@ describe('closing the season', () => {
     expect(reopen.body.error.code).toBe('season_not_open');
   });
 });
+
+describe('the ledger as the season changes', () => {
+  // The ledger is built once per change of the co-op and shared; every write it shows must
+  // bump the co-op's change version, or these reads would answer the ledger from before it.
+  const ledger = async (who: Client = coordinator) => {
+    const res = await who.get(`/api/seasons/${ex.seasonId}/ledger`);
+    expect(res.status).toBe(200);
+    return res.body as { season: { status: string }; householdNames: { name: string }[]; households: { name: string; feeCents: number; fuelCents: number; dueCents: number }[] };
+  };
+
+  it('answers a fee, a new household and the season closing at once, to coordinator and member alike', async () => {
+    expect((await ledger()).season.status).toBe('closed');
+    const before = await ledger();
+    const birchBefore = before.households.find((h) => h.name === 'Birch')!;
+    expect(birchBefore.feeCents).toBe(0);
+    expect((await ledger(birch)).households.map((h) => h.feeCents)).toEqual([0]);
+
+    const fee = await coordinator.request('PUT', `/api/seasons/${ex.seasonId}/fees`, { householdId: ex.households.birch, feeCents: 1500 });
+    expect(fee.status).toBe(200);
+    const afterFee = (await ledger()).households.find((h) => h.name === 'Birch')!;
+    expect(afterFee).toMatchObject({ feeCents: 1500, dueCents: birchBefore.fuelCents + 1500 });
+    expect((await ledger(birch)).households.map((h) => h.dueCents)).toEqual([birchBefore.fuelCents + 1500]);
+
+    expect((await coordinator.post('/api/households', { name: 'Dogwood' })).status).toBe(201);
+    const afterHousehold = await ledger();
+    expect(afterHousehold.householdNames.map((h) => h.name)).toEqual(['Ash', 'Birch', 'Cedar', 'Dogwood']);
+    expect(afterHousehold.households.find((h) => h.name === 'Dogwood')).toMatchObject({ feeCents: 0, fuelCents: 0, dueCents: 0 });
+  });
+});

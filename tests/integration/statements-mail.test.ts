@@ -53,6 +53,9 @@ describe('sending the statements while the mail server is down', () => {
     expect(retried).toBeGreaterThan(0);
     const [unsent] = await rows<{ n: string }>(`SELECT count(*) AS n FROM settlements WHERE season_id = :s AND sent_at IS NULL`, { s: ex.seasonId });
     expect(Number(unsent.n)).toBe(3);
+    const ledgerStatements = async () =>
+      ((await coordinator.get(`/api/seasons/${ex.seasonId}/ledger`)).body.statements as { sentAt: string | null }[]).map((st) => st.sentAt !== null);
+    expect(await ledgerStatements()).toEqual([false, false, false]);
 
     maildev('start');
     const until = Date.now() + 120_000;
@@ -68,6 +71,8 @@ describe('sending the statements while the mail server is down', () => {
     expect(got.map((g) => g.length)).toEqual([1, 1, 1]);
     const [sent] = await rows<{ n: string }>(`SELECT count(*) AS n FROM settlements WHERE season_id = :s AND sent_at IS NOT NULL`, { s: ex.seasonId });
     expect(Number(sent.n)).toBe(3);
+    // The ledger (built once per change of the co-op) shows them sent as soon as they are.
+    expect(await ledgerStatements()).toEqual([true, true, true]);
 
     // The statement carries the household's figures, the pay link and the PDF.
     const ash = got[0][0];

@@ -1,5 +1,5 @@
 import { route } from '@/lib/server/route';
-import { getLedger } from '@/lib/ledger/service';
+import { ledgerView } from '@/lib/ledger/service';
 import { LedgerFormat } from '@/lib/ledger/schema';
 import { ledgerCsv } from '@/lib/ledger/csv';
 import { ledgerPdf } from '@/lib/ledger/pdf';
@@ -8,7 +8,7 @@ import { getCooperative } from '@/lib/coop/service';
 /** The Season ledger: JSON (default), `?format=csv` or `?format=pdf`. A member sees its own row. */
 export const GET = route<{ id: string }>(async ({ ctx, params, url }) => {
   const format = LedgerFormat.parse(url.searchParams.get('format') ?? undefined);
-  const ledger = await getLedger(ctx, params.id);
+  const { ledger, json } = await ledgerView(ctx, params.id);
   const base = `ledger-${ledger.season.label.replace(/[^A-Za-z0-9]+/g, '-').toLowerCase()}`;
   if (format === 'csv') {
     return new Response(ledgerCsv(ledger), {
@@ -22,5 +22,6 @@ export const GET = route<{ id: string }>(async ({ ctx, params, url }) => {
       headers: { 'content-type': 'application/pdf', 'content-disposition': `attachment; filename="${base}.pdf"` },
     });
   }
-  return ledger;
+  // The JSON text is built once per change of the co-op and shared (a season's is large).
+  return new Response(json, { headers: { 'content-type': 'application/json' } });
 });

@@ -1,0 +1,79 @@
+/**
+ * Answers that are costly to build and change only when their co-op changes, kept per key with
+ * the change version they were built at (a number that only grows, as a decimal string).
+ *
+ * A caller reads the current version first and asks for the value at that version: a value built
+ * at that version or a later one is returned as it is (it holds every change up to the version
+ * asked for); otherwise it is built once, however many callers ask at the same time, and kept.
+ * A failed build is not kept. Values are weighed; the least recently used go first when the
+ * total passes `maxWeight`, and one heavier than that is returned but never kept.
+ */
+export class VersionedCache<V> {
+  private readonly entries = new Map<string, { version: bigint; value: V; weight: number }>();
+  private readonly building = new Map<string, { version: bigint; promise: Promise<V> }>();
+  private total = 0;
+
+  constructor(
+    private readonly maxWeight: number,
+    private readonly weigh: (value: V) => number,
+  ) {}
+
+  async get(key: string, version: string | number | bigint, build: () => Promise<V>): Promise<V> {
+    const v = BigInt(version);
+    const kept = this.entries.get(key);
+    if (kept && kept.version >= v) {
+      this.entries.delete(key); // most recently used last
+      this.entries.set(key, kept);
+      return kept.value;
+    }
+    const pending = this.building.get(key);
+    if (pending && pending.version >= v) return pending.promise;
+
+    const promise = build();
+    this.building.set(key, { version: v, promise });
+    try {
+      const value = await promise;
+      this.keep(key, v, value);
+      return value;
+    } finally {
+      if (this.building.get(key)?.promise === promise) this.building.delete(key);
+    }
+  }
+
+  /** Entries kept and their total weight (for tests and the benchmark). */
+  stats(): { entries: number; weight: number } {
+    return { entries: this.entries.size, weight: this.total };
+  }
+
+  clear(): void {
+    this.entries.clear();
+    this.total = 0;
+  }
+
+  private keep(key: string, version: bigint, value: V) {
+    const old = this.entries.get(key);
+    if (old && old.version >= version) return; // a newer build finished first
+    if (old) {
+      this.entries.delete(key);
+      this.total -= old.weight;
+    }
+    const weight = this.weigh(value);
+    if (weight > this.maxWeight) return;
+    this.entries.set(key, { version, value, weight });
+    this.total += weight;
+    for (const [k, e] of this.entries) {
+      if (this.total <= this.maxWeight) break;
+      this.entries.delete(k);
+      this.total -= e.weight;
+    }
+  }
+}
+
+/** Freezes a plain data tree, so a value shared between requests cannot be changed by one. */
+export function deepFreeze<T>(value: T): T {
+  if (value && typeof value === 'object' && !Object.isFrozen(value)) {
+    Object.freeze(value);
+    for (const child of Object.values(value as Record<string, unknown>)) deepFreeze(child);
+  }
+  return value;
+}

@@ -1,0 +1,87 @@
+import { describe, expect, it } from 'vitest';
+import { deepFreeze, VersionedCache } from '@/lib/server/versioned-cache';
+
+const counter = () => {
+  let builds = 0;
+  return {
+    build: (value: string) => async () => {
+      builds += 1;
+      return value;
+    },
+    get builds() {
+      return builds;
+    },
+  };
+};
+
+describe('VersionedCache', () => {
+  it('builds once per version and again when the version grows', async () => {
+    const cache = new VersionedCache<string>(100, (v) => v.length);
+    const c = counter();
+    expect(await cache.get('coop:season', '7', c.build('at 7'))).toBe('at 7');
+    expect(await cache.get('coop:season', '7', c.build('again at 7'))).toBe('at 7');
+    expect(c.builds).toBe(1);
+    expect(await cache.get('coop:season', '8', c.build('at 8'))).toBe('at 8');
+    expect(c.builds).toBe(2);
+    expect(cache.stats()).toEqual({ entries: 1, weight: 4 });
+  });
+
+  it('answers a caller that read an older version with the newer value it holds', async () => {
+    const cache = new VersionedCache<string>(100, (v) => v.length);
+    const c = counter();
+    await cache.get('k', 12n, c.build('at 12'));
+    expect(await cache.get('k', 11, c.build('at 11'))).toBe('at 12');
+    expect(c.builds).toBe(1);
+  });
+
+  it('builds once for callers that ask at the same time', async () => {
+    const cache = new VersionedCache<string>(100, (v) => v.length);
+    let builds = 0;
+    let release!: () => void;
+    const gate = new Promise<void>((r) => (release = r));
+    const build = async () => {
+      builds += 1;
+      await gate;
+      return 'built';
+    };
+    const asked = Promise.all([cache.get('k', '3', build), cache.get('k', '3', build), cache.get('k', '2', build)]);
+    release();
+    expect(await asked).toEqual(['built', 'built', 'built']);
+    expect(builds).toBe(1);
+  });
+
+  it('keeps no failed build: the next caller builds again', async () => {
+    const cache = new VersionedCache<string>(100, (v) => v.length);
+    await expect(
+      cache.get('k', '1', async () => {
+        throw new Error('database went away');
+      }),
+    ).rejects.toThrow('database went away');
+    expect(await cache.get('k', '1', async () => 'second try')).toBe('second try');
+  });
+
+  it('drops the least recently used past its weight, and never keeps one heavier than that', async () => {
+    const cache = new VersionedCache<string>(10, (v) => v.length);
+    const c = counter();
+    await cache.get('a', 1, c.build('aaaa'));
+    await cache.get('b', 1, c.build('bbbb'));
+    await cache.get('a', 1, c.build('unused')); // a is now the most recently used
+    await cache.get('c', 1, c.build('cccc')); // 12 > 10: b goes
+    expect(cache.stats()).toEqual({ entries: 2, weight: 8 });
+    await cache.get('b', 1, c.build('bbbb'));
+    expect(c.builds).toBe(4);
+    expect(await cache.get('huge', 1, c.build('x'.repeat(11)))).toHaveLength(11);
+    await cache.get('huge', 1, c.build('x'.repeat(11)));
+    expect(c.builds).toBe(6);
+  });
+});
+
+describe('deepFreeze', () => {
+  it('freezes nested objects and arrays so a shared answer cannot be edited', () => {
+    const v = deepFreeze({ households: [{ name: 'Ash', syrup: { golden: 1 } }] });
+    expect(() => {
+      (v.households[0].syrup as { golden: number }).golden = 2;
+    }).toThrow(TypeError);
+    expect(() => (v.households as unknown[]).push({})).toThrow(TypeError);
+  });
+});
