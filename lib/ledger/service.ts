@@ -54,16 +54,28 @@ const ledgers = (globalForLedgers.__brixhouseLedgers ??= new VersionedCache<Buil
  * built at that version or later holds every change up to it, and is shared until the next
  * change. Inside a caller's transaction it is built afresh.
  */
-export async function ledgerView(ctx: LedgerContext, seasonId: string): Promise<BuiltLedger> {
-  const season = await seasonOf(ctx, seasonId);
-  const build = async (): Promise<BuiltLedger> => {
-    const ledger = deepFreeze(await computeLedger(ctx, season));
-    return { ledger, json: JSON.stringify(ledger) };
-  };
-  const whole = ctx.transaction ? await build() : await ledgers.get(`${ctx.cooperativeId}:${season.id}`, season.changeVersion, build);
+export async function ledgerView(ctx: LedgerContext, seasonId: string, { knownVersion }: KnownVersion = {}): Promise<BuiltLedger> {
+  const key = `${ctx.cooperativeId}:${seasonId}`;
+  let whole = knownVersion && !ctx.transaction ? ledgers.peek(key, knownVersion) : undefined;
+  if (!whole) {
+    const season = await seasonOf(ctx, seasonId);
+    const build = async (): Promise<BuiltLedger> => {
+      const ledger = deepFreeze(await computeLedger(ctx, season));
+      return { ledger, json: JSON.stringify(ledger) };
+    };
+    whole = ctx.transaction ? await build() : await ledgers.get(key, season.changeVersion, build);
+  }
   if (ctx.actor.role !== 'member') return whole;
   const own = forActor(ctx, whole.ledger);
   return { ledger: own, json: JSON.stringify(own) };
+}
+
+/**
+ * The co-op's change version a GET route handler read with the person (`ctx.changeVersion`): an
+ * answer cached at that version or later is served without asking the database again.
+ */
+export interface KnownVersion {
+  knownVersion?: string;
 }
 
 /** GET /api/seasons/:id/ledger (as data; the route sends `ledgerView`'s text). */
@@ -86,7 +98,9 @@ interface SettlementDbRow {
 // give the same figures to the last bit. No row at all: no such season in this co-op.
 const SETTLEMENT_SQL = `
 WITH s AS (
-  SELECT id FROM seasons WHERE id = $seasonId AND cooperative_id = $cooperativeId
+  SELECT s.id, c.change_version::text AS version
+    FROM seasons s JOIN cooperatives c ON c.id = s.cooperative_id
+   WHERE s.id = $seasonId AND s.cooperative_id = $cooperativeId
 ), a AS (
   SELECT household_id, sum(sugar_kg ORDER BY sugar_kg) AS sugar_kg, sum(syrup_ml)::float8 AS syrup_ml, sum(fuel_cents)::float8 AS fuel_cents
     FROM allocations WHERE cooperative_id = $cooperativeId AND season_id = $seasonId GROUP BY household_id
@@ -94,7 +108,7 @@ WITH s AS (
   SELECT household_id, sum(volume_l) AS sap_l
     FROM sap_deliveries WHERE cooperative_id = $cooperativeId AND season_id = $seasonId AND status = 'accepted' GROUP BY household_id
 )
-SELECT h.id AS "householdId", h.name, coalesce(d.sap_l, 0) AS "sapL", coalesce(a.sugar_kg, 0) AS "sugarKg",
+SELECT s.version, h.id AS "householdId", h.name, coalesce(d.sap_l, 0) AS "sapL", coalesce(a.sugar_kg, 0) AS "sugarKg",
        coalesce(a.syrup_ml, 0) AS "syrupMl", coalesce(a.fuel_cents, 0) AS "fuelCents", coalesce(f.fee_cents, 0) AS "feeCents"
   FROM s
   LEFT JOIN households h ON h.cooperative_id = $cooperativeId
@@ -107,34 +121,70 @@ SELECT h.id AS "householdId", h.name, coalesce(d.sap_l, 0) AS "sapL", coalesce(a
  * GET /api/seasons/:id/settlement — the contract's shape, from one query; a member gets its own
  * household only (the totals stay the co-op's).
  */
-export async function getSettlement(ctx: LedgerContext, seasonId: string): Promise<Settlement> {
-  if (!UUID.test(seasonId)) throw fail('not_found', 'not_found', 'That season was not found.');
-  const rows = await getSequelize().query<SettlementDbRow>(SETTLEMENT_SQL, {
+export async function getSettlement(ctx: LedgerContext, seasonId: string, known: KnownVersion = {}): Promise<Settlement> {
+  return (await settlementView(ctx, seasonId, known)).settlement;
+}
+
+interface BuiltSettlement {
+  settlement: Settlement;
+  json: string;
+}
+
+const globalForSettlements = globalThis as unknown as { __brixhouseSettlements?: VersionedCache<BuiltSettlement> };
+const settlements = (globalForSettlements.__brixhouseSettlements ??= new VersionedCache<BuiltSettlement>(8 * 2 ** 20, (b) => 3 * b.json.length));
+
+/** The whole co-op's settlement of a season, from one statement (the version is read in it). */
+async function buildSettlement(ctx: LedgerContext, seasonId: string): Promise<{ version: string; settlement: Settlement }> {
+  const rows = await getSequelize().query<SettlementDbRow & { version: string }>(SETTLEMENT_SQL, {
     bind: { seasonId, cooperativeId: ctx.cooperativeId },
     type: QueryTypes.SELECT,
     transaction: ctx.transaction,
   });
   if (!rows.length) throw fail('not_found', 'not_found', 'That season was not found.');
-  const households = rows.filter((r): r is SettlementDbRow & { householdId: string } => r.householdId !== null);
+  const households = rows.filter((r): r is SettlementDbRow & { householdId: string; version: string } => r.householdId !== null);
   const totalSugar = sumAscending(households.map((h) => h.sugarKg));
-  const own = ctx.actor.role === 'member' ? ctx.actor.householdId : undefined;
   return {
-    seasonId,
-    households: households
-      .filter((h) => own === undefined || h.householdId === own)
-      .map((h) =>
+    version: rows[0].version,
+    settlement: {
+      seasonId,
+      households: households.map((h) =>
         settlementRow({
           ...h,
           share: totalSugar > 0 ? h.sugarKg / totalSugar : 0,
           dueCents: h.fuelCents + h.feeCents,
         }),
       ),
-    totals: {
-      sugarKg: round(totalSugar, 4),
-      syrupMl: households.reduce((t, h) => t + h.syrupMl, 0),
-      fuelCents: households.reduce((t, h) => t + h.fuelCents, 0),
+      totals: {
+        sugarKg: round(totalSugar, 4),
+        syrupMl: households.reduce((t, h) => t + h.syrupMl, 0),
+        fuelCents: households.reduce((t, h) => t + h.fuelCents, 0),
+      },
     },
   };
+}
+
+/**
+ * GET /api/seasons/:id/settlement with its JSON text; a member gets its own household only (the
+ * totals stay the co-op's). Kept per co-op change version like the ledger.
+ */
+export async function settlementView(ctx: LedgerContext, seasonId: string, { knownVersion }: KnownVersion = {}): Promise<BuiltSettlement> {
+  if (!UUID.test(seasonId)) throw fail('not_found', 'not_found', 'That season was not found.');
+  const key = `${ctx.cooperativeId}:${seasonId}`;
+  let whole = knownVersion && !ctx.transaction ? settlements.peek(key, knownVersion) : undefined;
+  if (!whole) {
+    const built = await buildSettlement(ctx, seasonId);
+    const settlement = deepFreeze(built.settlement);
+    whole = { settlement, json: JSON.stringify(settlement) };
+    // The version was read in the same statement as the figures: they belong to it exactly.
+    if (!ctx.transaction) {
+      const fresh = whole;
+      whole = await settlements.get(key, built.version, async () => fresh);
+    }
+  }
+  if (ctx.actor.role !== 'member') return whole;
+  const own = ctx.actor.householdId;
+  const mine: Settlement = { ...whole.settlement, households: whole.settlement.households.filter((h) => h.householdId === own) };
+  return { settlement: mine, json: JSON.stringify(mine) };
 }
 
 /** What closing answers: the season as the co-op's season list has it, less its fuel price. */

@@ -130,12 +130,14 @@ export function rememberSnapshot(cooperativeId: string, snapshot: QueueSnapshot)
 
 /**
  * The co-op's current queue: the cached snapshot when its version is still the database's and it
- * is fresh (one cheap query), otherwise a new one (one more query). Answers the JSON text too, so a
+ * is fresh (one cheap query, none when the caller read the version already), otherwise a new one. Answers the JSON text too, so a
  * busy GET formats nothing.
  */
-export async function currentSnapshot(cooperativeId: string): Promise<Cached | null> {
+export async function currentSnapshot(cooperativeId: string, knownVersion?: string): Promise<Cached | null> {
   const hit = cache().get(cooperativeId);
   if (hit && Date.now() - hit.at < FRESH_MS) {
+    // A route handler read the version with the person already: a snapshot at it or later will do.
+    if (knownVersion !== undefined && hit.snapshot.version >= Number(knownVersion)) return hit;
     const version = await currentVersion(getSequelize(), cooperativeId);
     if (version === hit.snapshot.version) return hit;
   }

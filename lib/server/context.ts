@@ -20,6 +20,12 @@ export interface Ctx<A extends Actor = Actor> {
   actor: A;
   cooperativeId: string;
   transaction?: Transaction;
+  /**
+   * The co-op's change version when the context was read (people's contexts). A GET route
+   * handler may serve an answer cached at this version or later without asking the database
+   * again; never use it after a write in the same request (it is from before the write).
+   */
+  changeVersion?: string;
 }
 export type PersonCtx = Ctx<PersonActor>;
 export type TxCtx<C extends Ctx = Ctx> = C & { transaction: Transaction };

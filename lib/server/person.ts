@@ -11,6 +11,8 @@ export interface PersonRow {
   email: string;
   role: Role;
   sessionVersion: number;
+  /** The co-op's change version, read with the person (lets a cached answer skip a query). */
+  changeVersion: string;
 }
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
@@ -19,9 +21,9 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 export async function loadPersonRow(userId: string): Promise<PersonRow | null> {
   if (!UUID.test(userId)) return null;
   const rows = await getSequelize().query<PersonRow>(
-    `SELECT id, cooperative_id AS "cooperativeId", household_id AS "householdId", name, email, role,
-            session_version AS "sessionVersion"
-       FROM users WHERE id = :id`,
+    `SELECT u.id, u.cooperative_id AS "cooperativeId", u.household_id AS "householdId", u.name, u.email, u.role,
+            u.session_version AS "sessionVersion", c.change_version::text AS "changeVersion"
+       FROM users u JOIN cooperatives c ON c.id = u.cooperative_id WHERE u.id = :id`,
     { replacements: { id: userId }, type: QueryTypes.SELECT },
   );
   return rows[0] ?? null;
@@ -38,12 +40,15 @@ export interface SessionClaims {
  * the token's session version is the current one. The same check for route handlers, pages,
  * server actions and sockets.
  */
-export async function personFromClaims(claims: SessionClaims | null | undefined): Promise<{ actor: PersonActor; cooperativeId: string } | null> {
+export async function personFromClaims(
+  claims: SessionClaims | null | undefined,
+): Promise<{ actor: PersonActor; cooperativeId: string; changeVersion: string } | null> {
   if (!claims || typeof claims.uid !== 'string' || typeof claims.sv !== 'number') return null;
   const row = await loadPersonRow(claims.uid);
   if (!row || row.sessionVersion !== claims.sv) return null;
   return {
     cooperativeId: row.cooperativeId,
+    changeVersion: row.changeVersion,
     actor: { kind: 'person', userId: row.id, role: row.role, householdId: row.householdId, name: row.name, email: row.email },
   };
 }

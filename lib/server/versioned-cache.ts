@@ -40,6 +40,15 @@ export class VersionedCache<V> {
     }
   }
 
+  /** The value kept for `key` if it was built at `version` or later; nothing is built. */
+  peek(key: string, version: string | number | bigint): V | undefined {
+    const kept = this.entries.get(key);
+    if (!kept || kept.version < BigInt(version)) return undefined;
+    this.entries.delete(key);
+    this.entries.set(key, kept);
+    return kept.value;
+  }
+
   /** Entries kept and their total weight (for tests and the benchmark). */
   stats(): { entries: number; weight: number } {
     return { entries: this.entries.size, weight: this.total };

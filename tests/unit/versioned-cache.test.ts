@@ -85,3 +85,15 @@ describe('deepFreeze', () => {
     expect(() => (v.households as unknown[]).push({})).toThrow(TypeError);
   });
 });
+
+describe('VersionedCache.peek', () => {
+  it('answers only what was built at the version asked for or later, and builds nothing', async () => {
+    const cache = new VersionedCache<string>(100, (v) => v.length);
+    expect(cache.peek('k', 1)).toBeUndefined();
+    await cache.get('k', 5, async () => 'at 5');
+    expect(cache.peek('k', '4')).toBe('at 5');
+    expect(cache.peek('k', '5')).toBe('at 5');
+    expect(cache.peek('k', '6')).toBeUndefined();
+    expect(cache.peek('other', '0')).toBeUndefined();
+  });
+});

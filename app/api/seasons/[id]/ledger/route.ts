@@ -8,7 +8,8 @@ import { getCooperative } from '@/lib/coop/service';
 /** The Season ledger: JSON (default), `?format=csv` or `?format=pdf`. A member sees its own row. */
 export const GET = route<{ id: string }>(async ({ ctx, params, url }) => {
   const format = LedgerFormat.parse(url.searchParams.get('format') ?? undefined);
-  const { ledger, json } = await ledgerView(ctx, params.id);
+  // Nothing was written in this request: the version read with the person may pick a kept answer.
+  const { ledger, json } = await ledgerView(ctx, params.id, { knownVersion: ctx.changeVersion });
   const base = `ledger-${ledger.season.label.replace(/[^A-Za-z0-9]+/g, '-').toLowerCase()}`;
   if (format === 'csv') {
     return new Response(ledgerCsv(ledger), {

@@ -1,5 +1,9 @@
 import { route } from '@/lib/server/route';
-import { getSettlement } from '@/lib/ledger/service';
+import { settlementView } from '@/lib/ledger/service';
 
 /** The season's settlement by sugar; a member gets its own household only. */
-export const GET = route<{ id: string }>(async ({ ctx, params }) => getSettlement(ctx, params.id));
+export const GET = route<{ id: string }>(async ({ ctx, params }) => {
+  // Nothing was written in this request: the version read with the person may pick a kept answer.
+  const { json } = await settlementView(ctx, params.id, { knownVersion: ctx.changeVersion });
+  return new Response(json, { headers: { 'content-type': 'application/json' } });
+});
