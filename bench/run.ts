@@ -57,7 +57,13 @@ async function apiContext(seed: GeneratedCoop, appUrls: string[], baselineUrl: s
     countLots: async () =>
       lots ? Number((await rows<{ n: string }>('SELECT count(*) AS n FROM sap_deliveries WHERE cooperative_id = :id', { id: seed.cooperativeId }))[0].n) : null,
     removeBenchLots: async () => {
-      if (lots) await sql.query('DELETE FROM sap_deliveries WHERE cooperative_id = :id AND note = :note', { replacements: { id: seed.cooperativeId, note: BENCH_NOTE } });
+      if (!lots) return;
+      // Straight to the database, so the co-op's change version is bumped here as the app's
+      // writes bump it (answers kept per version must not outlive these rows).
+      await sql.transaction(async (transaction) => {
+        await sql.query('DELETE FROM sap_deliveries WHERE cooperative_id = :id AND note = :note', { replacements: { id: seed.cooperativeId, note: BENCH_NOTE }, transaction });
+        await sql.query('UPDATE cooperatives SET change_version = change_version + 1 WHERE id = :id', { replacements: { id: seed.cooperativeId }, transaction });
+      });
     },
   };
 }

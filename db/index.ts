@@ -42,8 +42,9 @@ function create(url: string): Sequelize {
     dialectModule: pg,
     logging: false,
     // A warm pool: `min` connections stay open through idle spells, so the first request after
-    // a quiet minute does not wait for a new connection; TCP keep-alive keeps them alive.
-    pool: { max: 20, min: 2, idle: 10_000, acquire: 30_000 },
+    // a quiet minute does not wait for a new connection, and a burst after a pause does not open
+    // a dozen at once (each costs a SCRAM handshake); TCP keep-alive keeps them alive.
+    pool: { max: 20, min: 8, idle: 120_000, acquire: 30_000 },
     dialectOptions: { keepAlive: true },
     retry: { max: 3, match: RETRYABLE },
     define: { underscored: true, timestamps: true },
