@@ -23,6 +23,8 @@ export interface LoadTarget {
   headers?: Record<string, string>;
   /** A fresh body for every request (fresh idempotency keys). */
   body?: () => string;
+  /** Called with the `id` of every 2xx answer's JSON body (the rows a write acknowledged). */
+  onAcknowledged?: (id: string) => void;
   connections?: number;
 }
 
@@ -47,7 +49,19 @@ export async function load(target: LoadTarget, durationS: number): Promise<LoadR
     headers: target.headers ?? {},
     timeout: 10,
     ...(bodyFn
-      ? { requests: [{ method: target.method ?? 'POST', setupRequest: (req: Record<string, unknown>) => ({ ...req, body: bodyFn() }) }] }
+      ? {
+          requests: [
+            {
+              method: target.method ?? 'POST',
+              setupRequest: (req: Record<string, unknown>) => ({ ...req, body: bodyFn() }),
+              onResponse: (status: number, body: string) => {
+                if (status < 200 || status >= 300 || !target.onAcknowledged) return;
+                const id = (JSON.parse(body) as { id?: unknown }).id;
+                if (typeof id === 'string') target.onAcknowledged(id);
+              },
+            },
+          ],
+        }
       : {}),
   });
   const statusCodes: Record<string, number> = {};

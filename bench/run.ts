@@ -56,6 +56,10 @@ async function apiContext(seed: GeneratedCoop, appUrls: string[], baselineUrl: s
     pastDay: today.minus({ days: 2 }).toISODate()!,
     countLots: async () =>
       lots ? Number((await rows<{ n: string }>('SELECT count(*) AS n FROM sap_deliveries WHERE cooperative_id = :id', { id: seed.cooperativeId }))[0].n) : null,
+    countLotsById: async (ids) =>
+      ids.length
+        ? Number((await rows<{ n: string }>('SELECT count(*) AS n FROM sap_deliveries WHERE cooperative_id = :c AND id IN (:ids)', { c: seed.cooperativeId, ids }))[0].n)
+        : 0,
     removeBenchLots: async () => {
       if (!lots) return;
       // Straight to the database, so the co-op's change version is bumped here as the app's

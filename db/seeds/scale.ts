@@ -283,33 +283,39 @@ async function lots({ q, spec, zone, cooperativeId, openSeasonId, opens, now }: 
  * order of an oil-fired evaporator's burn).
  */
 async function runs({ q, sequelize, transaction, spec, cooperativeId, openSeasonId, opens, now }: StepContext) {
-  await q(
-    `WITH sm AS (SELECT id FROM users WHERE cooperative_id = :cooperativeId AND role = 'sugarmaker' LIMIT 1),
+  // Which lots each run boils (the same rows for both statements below). Two statements joined
+  // through boil_runs' unique (season, run number) index, not one joined to an INSERT's
+  // RETURNING: the planner cannot estimate that and nested-looped 200,000 × 20,000 at ×100.
+  const boil = `sm AS (SELECT id FROM users WHERE cooperative_id = :cooperativeId AND role = 'sugarmaker' LIMIT 1),
           lots AS (SELECT id, received_at, volume_l, row_number() OVER (ORDER BY received_at, id) AS i, count(*) OVER () AS n
                      FROM sap_deliveries WHERE cooperative_id = :cooperativeId AND season_id = :openSeasonId AND status = 'accepted'),
-          boil AS (SELECT id, volume_l, ceil(i * :runs::numeric / (n - :waiting))::int AS r FROM lots WHERE i <= n - :waiting),
-          planned AS (SELECT b.r, max(l.received_at) + interval '30 minutes' AS started_at
-                        FROM boil b JOIN lots l ON l.id = b.id GROUP BY b.r),
-          e AS (SELECT id, row_number() OVER (ORDER BY name) - 1 AS k FROM evaporators WHERE cooperative_id = :cooperativeId),
-          made AS (
-            INSERT INTO boil_runs (cooperative_id, season_id, evaporator_id, run_number, lot_code, status, started_at, finished_at,
-                                   started_by_id, finished_by_id)
-            SELECT :cooperativeId, :openSeasonId, e.id, p.r, :year || '-' || lpad(p.r::text, greatest(3, length(p.r::text)), '0'), 'finished', p.started_at,
-                   least(p.started_at + interval '3 hours', :now::timestamptz), (SELECT id FROM sm), (SELECT id FROM sm)
-              FROM planned p JOIN e ON e.k = (p.r - 1) % :evaporators
-            RETURNING id, run_number, started_at)
+          boil AS (SELECT id, received_at, volume_l, ceil(i * :runs::numeric / (n - :waiting))::int AS r FROM lots WHERE i <= n - :waiting)`;
+  const replacements = {
+    cooperativeId,
+    openSeasonId,
+    runs: spec.runs,
+    waiting: spec.waiting,
+    evaporators: spec.evaporators,
+    year: String(opens.year),
+    now,
+  };
+  await q(
+    `WITH ${boil},
+          planned AS (SELECT r, max(received_at) + interval '30 minutes' AS started_at FROM boil GROUP BY r),
+          e AS (SELECT id, row_number() OVER (ORDER BY name) - 1 AS k FROM evaporators WHERE cooperative_id = :cooperativeId)
+     INSERT INTO boil_runs (cooperative_id, season_id, evaporator_id, run_number, lot_code, status, started_at, finished_at,
+                            started_by_id, finished_by_id)
+     SELECT :cooperativeId, :openSeasonId, e.id, p.r, :year || '-' || lpad(p.r::text, greatest(3, length(p.r::text)), '0'), 'finished', p.started_at,
+            least(p.started_at + interval '3 hours', :now::timestamptz), (SELECT id FROM sm), (SELECT id FROM sm)
+       FROM planned p JOIN e ON e.k = (p.r - 1) % :evaporators`,
+    replacements,
+  );
+  await q(
+    `WITH ${boil}
      INSERT INTO run_inputs (cooperative_id, run_id, delivery_id, litres, taken_at, taken_by_id)
      SELECT :cooperativeId, made.id, b.id, b.volume_l, made.started_at, (SELECT id FROM sm)
-       FROM boil b JOIN made ON made.run_number = b.r`,
-    {
-      cooperativeId,
-      openSeasonId,
-      runs: spec.runs,
-      waiting: spec.waiting,
-      evaporators: spec.evaporators,
-      year: String(opens.year),
-      now,
-    },
+       FROM boil b JOIN boil_runs made ON made.season_id = :openSeasonId AND made.run_number = b.r`,
+    replacements,
   );
 
   const inputs = await sequelize.query<{ runId: string; startedAt: Date; finishedAt: Date; volumeL: number; brix: number }>(

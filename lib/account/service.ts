@@ -7,6 +7,7 @@ import type { PersonCtx } from '@/lib/server/context';
 import { AppError, conflict, invalidField, notFound } from '@/lib/server/errors';
 import { withTransaction } from '@/lib/server/tx';
 import { enqueueMail } from '@/lib/mail/outbox';
+import { recordChange } from '@/lib/events';
 import { endSessions } from '@/lib/households/service';
 import { resetMail, RESET_MINUTES } from './mail';
 import type { ChangeNameInput, ChangePasswordInput, ForgotPasswordInput, ResetPasswordInput } from './schema';
@@ -73,9 +74,13 @@ export async function resetPassword(input: ResetPasswordInput, passwordHash: str
 /** Changes the name the acting person goes by. */
 export async function changeName(ctx: PersonCtx, input: ChangeNameInput): Promise<{ name: string }> {
   const { User } = db();
-  const [count] = await User.update({ name: input.name }, { where: { id: ctx.actor.userId, cooperativeId: ctx.cooperativeId }, transaction: ctx.transaction });
-  if (count !== 1) throw notFound('Your account');
-  return { name: input.name };
+  return withTransaction(ctx, async ({ transaction, cooperativeId, actor }) => {
+    const [count] = await User.update({ name: input.name }, { where: { id: actor.userId, cooperativeId }, transaction });
+    if (count !== 1) throw notFound('Your account');
+    // Lists show who logged each lot: screens and kept answers follow the new name.
+    await recordChange({ cooperativeId, transaction }, { type: 'person.renamed', userId: actor.userId });
+    return { name: input.name };
+  });
 }
 
 /** The current password given was wrong (counted by the sign-in limits). */

@@ -9,6 +9,7 @@ import { registerConstraints } from '@/lib/server/db-errors';
 import { invalid, notFound } from '@/lib/server/errors';
 import { authorize, can } from '@/lib/server/policies';
 import { withTransaction } from '@/lib/server/tx';
+import { VersionedCache } from '@/lib/server/versioned-cache';
 import { isCoopKey, photoExists } from '@/lib/storage';
 import { sugarKg, type UnitSystem } from '@/lib/sugar';
 import { localDay, toZonedIso } from '@/lib/time';
@@ -142,6 +143,26 @@ function toDto<R extends LotRow>(r: R): Omit<R, 'sugarMaplePct' | 'redMaplePct' 
  * `GET /api/deliveries`: one SQL query; a member sees its own household's lots only. Days are
  * the co-op's calendar days, inclusive.
  */
+// Lists as JSON text per co-op, household scope and query, kept per co-op change version (every
+// write a list shows — lots, corrections, runs taking litres, names — bumps it).
+const globalForLists = globalThis as unknown as { __brixhouseDeliveryLists?: VersionedCache<string> };
+const lists = (globalForLists.__brixhouseDeliveryLists ??= new VersionedCache<string>(16 * 2 ** 20, (json) => 2 * json.length));
+
+/**
+ * `GET /api/deliveries` as JSON text. `knownVersion` is the co-op's change version read with the
+ * person in this request (nothing written since): a list built at it or later is served as kept.
+ */
+export async function deliveriesJson(ctx: DeliveryContext, query: DeliveryQuery, { knownVersion }: { knownVersion?: string } = {}): Promise<string> {
+  const build = async () => JSON.stringify(await listDeliveries(ctx, query));
+  if (!knownVersion || ctx.transaction) return build();
+  const own = ownHousehold(ctx);
+  const scope = own === undefined ? 'none' : (own ?? 'all');
+  const q = query as Record<string, unknown>;
+  const key = [ctx.cooperativeId, scope, ...Object.keys(q).sort().map((k) => `${k}=${String(q[k] ?? '')}`)].join('|');
+  // The list is read after the version was, so it holds every change up to it.
+  return lists.get(key, knownVersion, build);
+}
+
 export async function listDeliveries(ctx: DeliveryContext, query: DeliveryQuery): Promise<DeliveryDto[]> {
   const own = ownHousehold(ctx);
   if (own === undefined) return [];

@@ -22,6 +22,7 @@ export type ChangeEvent =
   | { type: 'season.fee'; seasonId: string; householdId: string }
   | { type: 'payment.received' | 'statement.sent'; settlementId: string }
   | { type: 'household.added'; householdId: string }
+  | { type: 'person.renamed'; userId: string }
   | { type: 'settings.changed' };
 
 export type ChangeEventType = ChangeEvent['type'];

@@ -4,8 +4,12 @@ import { onChange } from '@/lib/events';
 import { coopRoom } from '@/lib/realtime';
 import { computeSnapshot, currentSnapshot, rememberSnapshot } from './service';
 
-/** Bursts of changes within this many milliseconds make one snapshot. */
-const COALESCE_MS = 40;
+/**
+ * A change is sent at once (on the next turn of the event loop, so the changes of one turn make
+ * one snapshot); changes that arrive while a snapshot is being read make one more after it. A
+ * burst is coalesced by the time a snapshot takes, with no fixed wait added to a lone change.
+ */
+const COALESCE_MS = 0;
 
 interface Pending {
   timer: ReturnType<typeof setTimeout> | null;

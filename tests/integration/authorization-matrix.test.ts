@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DateTime } from 'luxon';
 import { BASE_URL } from '../test-env';
 import { Client, signedIn } from './http';
-import { closeTestDb, rows } from './db';
+import { closeTestDb, markChanged, rows } from './db';
 import { generateCoop, OTHER_COOP } from './coops';
 import { routeHandlers } from './routes';
 import type { GeneratedCoop } from '@/db/seeds/scale';
@@ -56,6 +56,7 @@ async function lot(coop: string, household: string) {
      VALUES (:coop, :season, :household, current_date - 1, 300, 2.4, 3, 'clear', 'none', 'accept', 'accepted', :key) RETURNING id`,
     { coop, season: season.id, household, key: `matrix-${randomUUID()}` },
   );
+  await markChanged(coop);
   return r.id;
 }
 
@@ -68,6 +69,7 @@ async function slot(coop: string, household: string) {
      VALUES (:coop, :season, :evaporator, :household, :s, :e, 'matrix') RETURNING id`,
     { coop, season: season.id, evaporator: await evaporator(coop), household, s: start.toISO(), e: start.plus({ hours: 2 }).toISO() },
   );
+  await markChanged(coop);
   return r.id;
 }
 
@@ -98,6 +100,7 @@ async function run(coop: string, household: string, { input = false } = {}) {
       lot: await lot(coop, household),
     });
   }
+  await markChanged(coop);
   return r.id;
 }
 

@@ -14,6 +14,14 @@ export async function rows<T extends object = Record<string, unknown>>(sql: stri
   return testDb().query<T>(sql, { replacements, type: QueryTypes.SELECT }) as unknown as Promise<T[]>;
 }
 
+/**
+ * A test that writes a co-op's rows straight into the database bumps its change version, as the
+ * app's own writes do in their transactions: answers kept per version must not outlive the write.
+ */
+export async function markChanged(cooperativeId: string): Promise<void> {
+  await testDb().query('UPDATE cooperatives SET change_version = change_version + 1 WHERE id = :cooperativeId', { replacements: { cooperativeId } });
+}
+
 export async function closeTestDb() {
   await sequelize?.close();
   sequelize = undefined;

@@ -210,6 +210,35 @@ describe('reading drop-offs', () => {
   });
 });
 
+describe('lists kept per change of the co-op', () => {
+  it('show a new lot, a correction and a renamed sugarmaker at once, to staff and members alike', async () => {
+    const day = today();
+    const url = `/api/deliveries?from=${day}&to=${day}`;
+    type Listed = { id: string; volumeL: number; loggedByName: string | null };
+    const find = async (who: Client, id: string) => ((await who.get(url)).body as Listed[]).find((l) => l.id === id);
+    const before = (await coordinator.get(url)).body as Listed[];
+    await okafor.get(url);
+
+    const created = await sugarmaker.post('/api/deliveries', lot({ volumeL: 120, brix: 2.2 }));
+    expect(created.status).toBe(201);
+    expect(((await coordinator.get(url)).body as Listed[]).length).toBe(before.length + 1);
+    expect(await find(okafor, created.body.id)).toMatchObject({ volumeL: 120 });
+    const name = (await find(coordinator, created.body.id))!.loggedByName!;
+
+    expect((await coordinator.patch(`/api/deliveries/${created.body.id}`, { volumeL: 130, reason: 'Meter read again.' })).status).toBe(200);
+    expect(await find(coordinator, created.body.id)).toMatchObject({ volumeL: 130 });
+    expect(await find(okafor, created.body.id)).toMatchObject({ volumeL: 130 });
+
+    try {
+      expect((await sugarmaker.patch('/api/account', { name: 'Sugarmaker Renamed' })).status).toBe(200);
+      expect(await find(coordinator, created.body.id)).toMatchObject({ loggedByName: 'Sugarmaker Renamed' });
+    } finally {
+      await sugarmaker.patch('/api/account', { name });
+    }
+    expect(await find(coordinator, created.body.id)).toMatchObject({ loggedByName: name });
+  });
+});
+
 describe('correcting a drop-off', () => {
   it('writes exactly one revision with the fields before and after, and the sugar follows', async () => {
     const created = await sugarmaker.post('/api/deliveries', lot({ volumeL: 150, brix: 2.0 }));

@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { rows, testDb } from './db';
+import { markChanged, rows, testDb } from './db';
 
 /** The demo co-op's ids that the run and queue tests build on. */
 export async function demoCoop() {
@@ -48,6 +48,7 @@ export async function insertLot(
       key: `test-${randomUUID()}`,
     },
   );
+  await markChanged(co.cooperativeId);
   return row.id;
 }
 

@@ -1,9 +1,13 @@
 import { DeliveryInput, DeliveryQuery } from '@/lib/deliveries/schema';
-import { createDelivery, listDeliveries } from '@/lib/deliveries/service';
+import { createDelivery, deliveriesJson } from '@/lib/deliveries/service';
 import { json, readJson, readQuery } from '@/lib/server/http';
 import { route } from '@/lib/server/route';
 
-export const GET = route(async ({ ctx, req }) => listDeliveries(ctx, readQuery(req, DeliveryQuery)));
+export const GET = route(async ({ ctx, req }) => {
+  // Nothing was written in this request: the version read with the person may pick a kept list.
+  const body = await deliveriesJson(ctx, readQuery(req, DeliveryQuery), { knownVersion: ctx.changeVersion });
+  return new Response(body, { headers: { 'content-type': 'application/json' } });
+});
 
 /** 201 with the new lot; 200 with the first lot when the idempotency key was seen before. */
 export const POST = route(async ({ ctx, req }) => {
