@@ -5,11 +5,12 @@ import { coopRoom } from '@/lib/realtime';
 import { computeSnapshot, currentSnapshot, rememberSnapshot } from './service';
 
 /**
- * A change is sent at once (on the next turn of the event loop, so the changes of one turn make
- * one snapshot); changes that arrive while a snapshot is being read make one more after it. A
- * burst is coalesced by the time a snapshot takes, with no fixed wait added to a lone change.
+ * A lone change is sent at once (on the next turn of the event loop, so the changes of one turn
+ * make one snapshot). Snapshots of one co-op start at least this far apart: the changes of a
+ * burst that arrive meanwhile, or while a snapshot is being read, make one more snapshot after
+ * the gap, so a busy desk costs at most 25 snapshots a second however many lots it logs.
  */
-const COALESCE_MS = 0;
+const MIN_GAP_MS = 40;
 
 interface Pending {
   timer: ReturnType<typeof setTimeout> | null;
@@ -27,6 +28,7 @@ interface Pending {
 export function startQueueBroadcaster(io: Server): () => void {
   const pending = new Map<string, Pending>();
   const sent = new Map<string, number>();
+  const lastStart = new Map<string, number>();
 
   async function flush(cooperativeId: string) {
     const p = pending.get(cooperativeId)!;
@@ -36,6 +38,7 @@ export function startQueueBroadcaster(io: Server): () => void {
       return;
     }
     p.running = true;
+    lastStart.set(cooperativeId, Date.now());
     try {
       const snapshot = await computeSnapshot(cooperativeId);
       // A change already carried by an earlier snapshot is not sent again.
@@ -62,7 +65,8 @@ export function startQueueBroadcaster(io: Server): () => void {
       p.again = true;
       return;
     }
-    p.timer ??= setTimeout(() => void flush(cooperativeId), COALESCE_MS);
+    const wait = Math.max(0, (lastStart.get(cooperativeId) ?? -Infinity) + MIN_GAP_MS - Date.now());
+    p.timer ??= setTimeout(() => void flush(cooperativeId), wait);
   }
 
   return onChange(({ cooperativeId }) => schedule(cooperativeId));
