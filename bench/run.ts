@@ -191,7 +191,9 @@ async function main() {
       log('Settlement at scale');
       const scales = args['settlement-scales'].split(',').map(Number);
       report.figures.push(...(await settlementAtScale(sql, a.url, { scales, repeats: 3, log, report })));
-      report.commands.push(`settlement: db:seed -- --scale ${scales.join(' and ')}, then GET settlement and ledger 3 times each (after one warm-up) and 3 runs finished, medians`);
+      report.commands.push(
+        `settlement: db:seed -- --scale ${scales.join(' and ')}, then 3 times each: PUT a season fee (a change) and GET the settlement and the ledger (the first answer after the change, then again), and 3 runs finished; medians`,
+      );
     }
     await stopProcess(baseline.child);
     await stopProcess(a.child);
