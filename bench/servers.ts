@@ -98,3 +98,18 @@ export async function signIn(baseUrl: string, email: string, password: string): 
   if (!session) throw new Error(`Could not sign in as ${email} (answer ${res.status})`);
   return `${session}=${jar.get(session)}`;
 }
+
+/** A signed-in caller of the app that times each request (the answer read whole, as a screen would). */
+export function timedCaller(appUrl: string, cookie: string) {
+  return async <T = unknown>(method: string, p: string, body?: unknown): Promise<{ ms: number; body: T }> => {
+    const t = performance.now();
+    const res = await fetch(`${appUrl}${p}`, {
+      method,
+      headers: { cookie, accept: 'application/json', ...(body ? { 'content-type': 'application/json', origin: appUrl } : {}) },
+      body: body ? JSON.stringify(body) : undefined,
+    });
+    const text = await res.text();
+    if (!res.ok) throw new Error(`${method} ${p}: ${res.status} ${text.slice(0, 200)}`);
+    return { ms: performance.now() - t, body: JSON.parse(text) as T };
+  };
+}

@@ -7,7 +7,7 @@
 import { QueryTypes } from 'sequelize';
 import { getSequelize } from '@/db';
 import { median } from './load';
-import { signIn, startApp, stopAll } from './servers';
+import { signIn, startApp, stopAll, timedCaller } from './servers';
 
 async function main() {
   const sql = getSequelize();
@@ -19,13 +19,7 @@ async function main() {
       { replacements: { n: `Scale ×${scale} Cooperative` }, type: QueryTypes.SELECT },
     );
     const cookie = await signIn(a.url, `coordinator@scale-${scale}.example`, 'syrup-season');
-    const call = async (method: string, p: string, body?: unknown) => {
-      const t = performance.now();
-      const res = await fetch(`${a.url}${p}`, { method, headers: { cookie, accept: 'application/json', ...(body ? { 'content-type': 'application/json', origin: a.url } : {}) }, body: body ? JSON.stringify(body) : undefined });
-      await res.text();
-      if (!res.ok) throw new Error(`${p} ${res.status}`);
-      return performance.now() - t;
-    };
+    const call = async (method: string, p: string, body?: unknown) => (await timedCaller(a.url, cookie)(method, p, body)).ms;
     await call('GET', `/api/seasons/${c.season}/settlement`);
     const ms: number[] = [];
     for (let i = 0; i < 5; i++) {

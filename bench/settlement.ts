@@ -7,7 +7,7 @@ import { QueryTypes, type Sequelize } from 'sequelize';
 import { seedScale } from '@/db/seeds/scale';
 import { median } from './load';
 import type { Figure, Report } from './report';
-import { ROOT, signIn } from './servers';
+import { ROOT, signIn, timedCaller } from './servers';
 
 const PG_LOG = path.join(ROOT, '.data', 'pg', 'server.log');
 
@@ -56,17 +56,7 @@ export async function settlementAtScale(
     log(`  ×${scale}: ${Object.entries(seed.counts).map(([t, n]) => `${n} ${t}`).join(', ')} in ${((Date.now() - started) / 1000).toFixed(0)} s`);
     await sql.query('ANALYZE');
     const cookie = await signIn(appUrl, seed.coordinatorEmail, seed.password);
-    const call = async (method: string, p: string, body?: unknown) => {
-      const t = performance.now();
-      const res = await fetch(`${appUrl}${p}`, {
-        method,
-        headers: { cookie, accept: 'application/json', ...(body ? { 'content-type': 'application/json', origin: appUrl } : {}) },
-        body: body ? JSON.stringify(body) : undefined,
-      });
-      const text = await res.text();
-      if (!res.ok) throw new Error(`${method} ${p}: ${res.status} ${text.slice(0, 200)}`);
-      return { ms: performance.now() - t, body: JSON.parse(text) as { id: string } };
-    };
+    const call = timedCaller(appUrl, cookie);
     const logFrom = logSize();
     // Answers are kept per change of the co-op: each timed GET follows a change (a season fee
     // set, as a coordinator would), so it is the first answer after a change, built afresh.
@@ -104,7 +94,7 @@ export async function settlementAtScale(
         "SELECT id FROM sap_deliveries WHERE cooperative_id = :c AND status = 'accepted' AND litres_boiled < volume_l ORDER BY received_at LIMIT 3",
         { replacements: { c: seed.cooperativeId }, type: QueryTypes.SELECT },
       );
-      const run = (await call('POST', '/api/runs', { evaporatorId: e.id, slotId: null })).body;
+      const run = (await call<{ id: string }>('POST', '/api/runs', { evaporatorId: e.id, slotId: null })).body;
       await call('POST', `/api/runs/${run.id}/inputs`, { inputs: lots.map((l) => ({ deliveryId: l.id })) });
       await call('POST', `/api/runs/${run.id}/draws`, { litres: 20, brix: 66.9, transmittancePct: 55 });
       await call('POST', `/api/runs/${run.id}/fuel`, { quantity: 12 });

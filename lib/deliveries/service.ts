@@ -9,7 +9,7 @@ import { registerConstraints } from '@/lib/server/db-errors';
 import { invalid, notFound } from '@/lib/server/errors';
 import { authorize, can } from '@/lib/server/policies';
 import { withTransaction } from '@/lib/server/tx';
-import { VersionedCache } from '@/lib/server/versioned-cache';
+import { processCache } from '@/lib/server/versioned-cache';
 import { isCoopKey, photoExists } from '@/lib/storage';
 import { sugarKg, type UnitSystem } from '@/lib/sugar';
 import { localDay, toZonedIso } from '@/lib/time';
@@ -145,8 +145,7 @@ function toDto<R extends LotRow>(r: R): Omit<R, 'sugarMaplePct' | 'redMaplePct' 
  */
 // Lists as JSON text per co-op, household scope and query, kept per co-op change version (every
 // write a list shows — lots, corrections, runs taking litres, names — bumps it).
-const globalForLists = globalThis as unknown as { __brixhouseDeliveryLists?: VersionedCache<string> };
-const lists = (globalForLists.__brixhouseDeliveryLists ??= new VersionedCache<string>(16 * 2 ** 20, (json) => 2 * json.length));
+const lists = processCache<string>('delivery-lists', 16 * 2 ** 20, (json) => 2 * json.length);
 
 /**
  * `GET /api/deliveries` as JSON text. `knownVersion` is the co-op's change version read with the

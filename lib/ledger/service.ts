@@ -12,7 +12,7 @@ import { enqueueStatements } from './statement-mail';
 import { loadStatement } from './statement-data';
 import type { Ledger, Settlement, Statement } from './types';
 import type { SeasonDto } from '@/lib/coop/types';
-import { deepFreeze, VersionedCache } from '@/lib/server/versioned-cache';
+import { deepFreeze, processCache } from '@/lib/server/versioned-cache';
 
 /** Who acts (a signed-in person) and for which co-op; `transaction` when the caller already holds one. */
 export type LedgerContext = PersonCtx;
@@ -42,10 +42,8 @@ interface BuiltLedger {
   json: string;
 }
 
-// On globalThis so the route handlers' and the pages' bundles share one cache per process.
 // About 3 bytes of memory per character of JSON (the text and the objects it came from).
-const globalForLedgers = globalThis as unknown as { __brixhouseLedgers?: VersionedCache<BuiltLedger> };
-const ledgers = (globalForLedgers.__brixhouseLedgers ??= new VersionedCache<BuiltLedger>(48 * 2 ** 20, (b) => 3 * b.json.length));
+const ledgers = processCache<BuiltLedger>('ledgers', 48 * 2 ** 20, (b) => 3 * b.json.length);
 
 /**
  * The ledger as the acting person may see it, with its JSON text. Every write the ledger shows
@@ -130,8 +128,7 @@ interface BuiltSettlement {
   json: string;
 }
 
-const globalForSettlements = globalThis as unknown as { __brixhouseSettlements?: VersionedCache<BuiltSettlement> };
-const settlements = (globalForSettlements.__brixhouseSettlements ??= new VersionedCache<BuiltSettlement>(8 * 2 ** 20, (b) => 3 * b.json.length));
+const settlements = processCache<BuiltSettlement>('settlements', 8 * 2 ** 20, (b) => 3 * b.json.length);
 
 /** The whole co-op's settlement of a season, from one statement (the version is read in it). */
 async function buildSettlement(ctx: LedgerContext, seasonId: string): Promise<{ version: string; settlement: Settlement }> {
@@ -176,10 +173,7 @@ export async function settlementView(ctx: LedgerContext, seasonId: string, { kno
     const settlement = deepFreeze(built.settlement);
     whole = { settlement, json: JSON.stringify(settlement) };
     // The version was read in the same statement as the figures: they belong to it exactly.
-    if (!ctx.transaction) {
-      const fresh = whole;
-      whole = await settlements.get(key, built.version, async () => fresh);
-    }
+    if (!ctx.transaction) whole = settlements.keep(key, built.version, whole);
   }
   if (ctx.actor.role !== 'member') return whole;
   const own = ctx.actor.householdId;

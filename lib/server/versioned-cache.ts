@@ -32,12 +32,34 @@ export class VersionedCache<V> {
     const promise = build();
     this.building.set(key, { version: v, promise });
     try {
-      const value = await promise;
-      this.keep(key, v, value);
-      return value;
+      return this.keep(key, v, await promise);
     } finally {
       if (this.building.get(key)?.promise === promise) this.building.delete(key);
     }
+  }
+
+  /**
+   * Keeps a value already built at `version` (when the version was read together with it) and
+   * returns what is kept now: that value, or a newer one that was kept first.
+   */
+  keep(key: string, version: string | number | bigint, value: V): V {
+    const v = BigInt(version);
+    const old = this.entries.get(key);
+    if (old && old.version >= v) return old.value; // a newer build finished first
+    if (old) {
+      this.entries.delete(key);
+      this.total -= old.weight;
+    }
+    const weight = this.weigh(value);
+    if (weight > this.maxWeight) return value;
+    this.entries.set(key, { version: v, value, weight });
+    this.total += weight;
+    for (const [k, e] of this.entries) {
+      if (this.total <= this.maxWeight) break;
+      this.entries.delete(k);
+      this.total -= e.weight;
+    }
+    return value;
   }
 
   /** The value kept for `key` if it was built at `version` or later; nothing is built. */
@@ -53,29 +75,17 @@ export class VersionedCache<V> {
   stats(): { entries: number; weight: number } {
     return { entries: this.entries.size, weight: this.total };
   }
+}
 
-  clear(): void {
-    this.entries.clear();
-    this.total = 0;
-  }
-
-  private keep(key: string, version: bigint, value: V) {
-    const old = this.entries.get(key);
-    if (old && old.version >= version) return; // a newer build finished first
-    if (old) {
-      this.entries.delete(key);
-      this.total -= old.weight;
-    }
-    const weight = this.weigh(value);
-    if (weight > this.maxWeight) return;
-    this.entries.set(key, { version, value, weight });
-    this.total += weight;
-    for (const [k, e] of this.entries) {
-      if (this.total <= this.maxWeight) break;
-      this.entries.delete(k);
-      this.total -= e.weight;
-    }
-  }
+/**
+ * One cache per process under `name`, on globalThis so that server.ts and the route handlers'
+ * and pages' bundles share it.
+ */
+export function processCache<V>(name: string, maxWeight: number, weigh: (value: V) => number): VersionedCache<V> {
+  const caches = ((globalThis as unknown as { __brixhouseCaches?: Map<string, VersionedCache<unknown>> }).__brixhouseCaches ??= new Map());
+  let cache = caches.get(name) as VersionedCache<V> | undefined;
+  if (!cache) caches.set(name, (cache = new VersionedCache<V>(maxWeight, weigh)) as VersionedCache<unknown>);
+  return cache;
 }
 
 /** Freezes a plain data tree, so a value shared between requests cannot be changed by one. */

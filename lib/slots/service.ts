@@ -24,7 +24,10 @@ registerConstraints({
   boil_slots_crew_size: { code: 'invalid_input', field: 'crew', message: 'At most 12 people in a crew.' },
 });
 
-function toDto(slot: BoilSlot, householdName: string, actor: Actor, zone: string): SlotDto {
+/** What a slot's answer is made from: a model instance or a plain row of the list query. */
+type SlotFields = Pick<BoilSlot, 'id' | 'evaporatorId' | 'householdId' | 'startsAt' | 'endsAt' | 'status' | 'crew' | 'expectedSapL' | 'note'>;
+
+function toDto(slot: SlotFields, householdName: string, actor: Actor, zone: string): SlotDto {
   const own = can(actor, 'slot.seeDetails', slot);
   return {
     id: slot.id,
@@ -71,23 +74,7 @@ export async function listSlots(ctx: Ctx, { from, to }: { from: string; to: stri
     type: QueryTypes.SELECT,
     transaction: ctx.transaction,
   });
-  return rows.map(({ timeZone, ...slot }) => {
-    // Other households' slots show only who crews them.
-    const own = can(ctx.actor, 'slot.seeDetails', slot);
-    return {
-      id: slot.id,
-      evaporatorId: slot.evaporatorId,
-      householdId: slot.householdId,
-      householdName: slot.householdName,
-      startsAt: toZonedIso(slot.startsAt, timeZone),
-      endsAt: toZonedIso(slot.endsAt, timeZone),
-      status: slot.status,
-      crew: own ? slot.crew : [],
-      expectedSapL: own ? slot.expectedSapL : null,
-      note: own ? slot.note : null,
-      editable: own && slot.status === 'booked',
-    };
-  });
+  return rows.map(({ timeZone, ...slot }) => toDto(slot, slot.householdName, ctx.actor, timeZone));
 }
 
 /** The next booked slots, for the Today page (one household's, or everyone's). */

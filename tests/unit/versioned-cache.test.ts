@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { deepFreeze, VersionedCache } from '@/lib/server/versioned-cache';
+import { deepFreeze, processCache, VersionedCache } from '@/lib/server/versioned-cache';
 
 const counter = () => {
   let builds = 0;
@@ -95,5 +95,23 @@ describe('VersionedCache.peek', () => {
     expect(cache.peek('k', '5')).toBe('at 5');
     expect(cache.peek('k', '6')).toBeUndefined();
     expect(cache.peek('other', '0')).toBeUndefined();
+  });
+});
+
+describe('VersionedCache.keep and processCache', () => {
+  it('keeps a value built elsewhere at its version, unless a newer one is kept already', () => {
+    const cache = new VersionedCache<string>(100, (v) => v.length);
+    expect(cache.keep('k', '4', 'at 4')).toBe('at 4');
+    expect(cache.peek('k', 4)).toBe('at 4');
+    expect(cache.keep('k', '3', 'at 3')).toBe('at 4');
+    expect(cache.keep('k', '5', 'at 5')).toBe('at 5');
+    expect(cache.stats()).toEqual({ entries: 1, weight: 4 });
+  });
+
+  it('gives every caller in the process the same cache for a name', () => {
+    const a = processCache<string>('versioned-cache-test', 10, (v) => v.length);
+    a.keep('k', 1, 'one');
+    expect(processCache<string>('versioned-cache-test', 10, (v) => v.length).peek('k', 1)).toBe('one');
+    expect(processCache<string>('versioned-cache-test-other', 10, (v) => v.length).peek('k', 1)).toBeUndefined();
   });
 });
