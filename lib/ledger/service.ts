@@ -119,10 +119,6 @@ SELECT s.version, h.id AS "householdId", h.name, coalesce(d.sap_l, 0) AS "sapL",
  * GET /api/seasons/:id/settlement — the contract's shape, from one query; a member gets its own
  * household only (the totals stay the co-op's).
  */
-export async function getSettlement(ctx: LedgerContext, seasonId: string, known: KnownVersion = {}): Promise<Settlement> {
-  return (await settlementView(ctx, seasonId, known)).settlement;
-}
-
 interface BuiltSettlement {
   settlement: Settlement;
   json: string;
