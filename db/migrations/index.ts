@@ -9,6 +9,7 @@ import * as runs from './20261202-0020-runs';
 import * as ledger from './20261202-0030-ledger';
 import * as slotRevision from './20261202-0002-slot-revision';
 import * as runNumbers from './20261202-0040-run-numbers';
+import * as changeAtCommit from './20261202-0050-change-at-commit';
 import * as accountSecurity from './20261202-0003-account-security';
 
 interface MigrationModule {
@@ -28,4 +29,5 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '20261202-0030-ledger', module: ledger },
   { name: '20261202-0002-slot-revision', module: slotRevision },
   { name: '20261202-0040-run-numbers', module: runNumbers },
+  { name: '20261202-0050-change-at-commit', module: changeAtCommit },
 ];

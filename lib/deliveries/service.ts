@@ -53,6 +53,27 @@ async function coopAndOpenSeason(cooperativeId: string, transaction?: Transactio
   return row;
 }
 
+interface NewLotRow extends CoopRow {
+  householdName: string | null;
+  /** A lot already logged with this idempotency key. */
+  existingId: string | null;
+}
+
+/** Everything a new lot is checked against, in one statement (a busy desk logs many). */
+async function newLotContext(cooperativeId: string, householdId: string, key: string, transaction: Transaction): Promise<NewLotRow> {
+  const [row] = await db().sequelize.query<NewLotRow>(
+    `SELECT c.id, c.name, c.time_zone AS "timeZone", c.unit_system AS "unitSystem", c.shelf_days AS "shelfDays",
+            c.warm_above_c AS "warmAboveC", c.warm_shelf_days AS "warmShelfDays", s.id AS "seasonId",
+            (SELECT h.name FROM households h WHERE h.id = :householdId AND h.cooperative_id = c.id) AS "householdName",
+            (SELECT d.id FROM sap_deliveries d WHERE d.cooperative_id = c.id AND d.idempotency_key = :key) AS "existingId"
+       FROM cooperatives c LEFT JOIN seasons s ON s.cooperative_id = c.id AND s.status = 'open'
+      WHERE c.id = :cooperativeId`,
+    { replacements: { cooperativeId, householdId: UUID.test(householdId) ? householdId : null, key }, type: QueryTypes.SELECT, transaction },
+  );
+  if (!row) throw notFound('Your cooperative');
+  return row;
+}
+
 async function householdName(cooperativeId: string, householdId: string, transaction?: Transaction): Promise<string | null> {
   const [row] = await db().sequelize.query<{ name: string }>('SELECT name FROM households WHERE id = :householdId AND cooperative_id = :cooperativeId', {
     replacements: { householdId, cooperativeId },
@@ -231,12 +252,11 @@ async function findByKey(cooperativeId: string, key: string): Promise<string | n
  */
 export async function createDelivery(ctx: DeliveryContext, input: DeliveryInput, now = new Date()): Promise<{ lot: DeliveryDto; created: boolean }> {
   authorize(ctx.actor, 'delivery.create', undefined, 'Only a sugarmaker or a coordinator can log a drop-off.');
-  const existing = await findByKey(ctx.cooperativeId, input.idempotencyKey);
-  if (existing) return { lot: await lotForAnswer(ctx, existing), created: false };
   try {
     // Safe to retry on a lost connection: a second try of a committed insert meets the key.
-    const lot = await withTransaction(ctx, (tx) => insertLot(tx, input, now), { idempotent: true });
-    return { lot, created: true };
+    const out = await withTransaction(ctx, (tx) => insertLot(tx, input, now), { idempotent: true });
+    if ('existingId' in out) return { lot: await lotForAnswer(ctx, out.existingId), created: false };
+    return { lot: out, created: true };
   } catch (err) {
     if (isIdempotencyClash(err)) {
       const id = await findByKey(ctx.cooperativeId, input.idempotencyKey);
@@ -251,11 +271,14 @@ async function lotForAnswer(ctx: DeliveryContext, id: string): Promise<DeliveryD
   return { ...lot, revisions: revisions.length };
 }
 
-async function insertLot(ctx: TxCtx, input: DeliveryInput, now: Date): Promise<DeliveryDto> {
+/** The new lot, or the lot an earlier request with the same idempotency key logged. */
+async function insertLot(ctx: TxCtx, input: DeliveryInput, now: Date): Promise<DeliveryDto | { existingId: string }> {
   const { transaction, cooperativeId } = ctx;
-  const coop = await coopAndOpenSeason(cooperativeId, transaction);
+  const coop = await newLotContext(cooperativeId, input.householdId, input.idempotencyKey, transaction);
+  // A repeated request answers the first lot, even after the season closed or the form changed.
+  if (coop.existingId) return { existingId: coop.existingId };
   if (!coop.seasonId) throw invalid('There is no open season to log sap into. A coordinator opens one in Settings.', undefined, 'no_open_season');
-  const name = UUID.test(input.householdId) ? await householdName(cooperativeId, input.householdId, transaction) : null;
+  const name = coop.householdName;
   if (!name) fail('householdId', 'Choose a household of this cooperative.', 'unknown_household');
   checkCollectedOn(input.collectedOn, localDay(now, coop.timeZone));
   await checkPhotoKey(cooperativeId, input.photoKey);

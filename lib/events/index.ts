@@ -4,9 +4,10 @@ import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 
 /**
  * Typed change events. A write calls `recordChange` inside its transaction: the co-op's change
- * version grows by one in that same transaction (so versions only grow, even across server
- * processes), and once the transaction commits every listener hears `{ cooperativeId, version,
- * event }`. A rolled-back write tells nobody.
+ * version grows by one when that transaction commits (a deferred trigger, so the co-op row is
+ * locked only for the commit itself and versions follow commit order, even across server
+ * processes), and once it has committed every listener hears `{ cooperativeId, event }`. A
+ * rolled-back write tells nobody and leaves the version.
  */
 export type ChangeEvent =
   | { type: 'delivery.accepted'; deliveryId: string; householdId: string }
@@ -29,8 +30,6 @@ export type ChangeEventType = ChangeEvent['type'];
 
 export interface ChangeNotice<E extends { type: string } = ChangeEvent> {
   cooperativeId: string;
-  /** The co-op's change version after this change. */
-  version: number;
   event: E;
 }
 
@@ -57,18 +56,17 @@ function sequelizeOf(transaction: Transaction): Sequelize {
 }
 
 /**
- * Bumps the co-op's change version in the caller's transaction and, after commit, tells every
- * listener. Returns the new version. A listener's failure is logged, never thrown at the writer.
+ * Marks the co-op changed in the caller's transaction: its version grows by one as the
+ * transaction commits (once however many changes it records), and after the commit every
+ * listener is told. A listener's failure is logged, never thrown at the writer.
  */
-export async function recordChange<E extends { type: string } = ChangeEvent>(ctx: ChangeContext, event: E): Promise<number> {
+export async function recordChange<E extends { type: string } = ChangeEvent>(ctx: ChangeContext, event: E): Promise<void> {
   const { cooperativeId, transaction } = ctx;
-  const rows = await sequelizeOf(transaction).query<{ change_version: string }>(
-    'UPDATE cooperatives SET change_version = change_version + 1 WHERE id = :cooperativeId RETURNING change_version',
-    { replacements: { cooperativeId }, type: QueryTypes.SELECT, transaction },
+  await sequelizeOf(transaction).query(
+    'INSERT INTO change_marks (txid, cooperative_id) VALUES (txid_current(), :cooperativeId) ON CONFLICT DO NOTHING',
+    { replacements: { cooperativeId }, transaction },
   );
-  if (!rows.length) throw new Error(`recordChange: no cooperative ${cooperativeId}`);
-  const version = Number(rows[0].change_version);
-  const notice = { cooperativeId, version, event } as unknown as ChangeNotice;
+  const notice = { cooperativeId, event } as unknown as ChangeNotice;
   transaction.afterCommit(() => {
     for (const listener of listeners()) {
       try {
@@ -79,7 +77,6 @@ export async function recordChange<E extends { type: string } = ChangeEvent>(ctx
       }
     }
   });
-  return version;
 }
 
 /** The co-op's current change version (0 before its first change). */

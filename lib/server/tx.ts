@@ -18,7 +18,6 @@ export interface TxOptions {
 }
 
 const LEVELS = {
-  'read committed': Transaction.ISOLATION_LEVELS.READ_COMMITTED,
   'repeatable read': Transaction.ISOLATION_LEVELS.REPEATABLE_READ,
   serializable: Transaction.ISOLATION_LEVELS.SERIALIZABLE,
 } as const;
@@ -51,7 +50,10 @@ export async function withTransaction<C extends Ctx, T>(
   if (!bare && (ctxOrFn as C).transaction) return body((ctxOrFn as C).transaction!);
 
   const attempts = opts?.attempts ?? 5;
-  const isolationLevel = LEVELS[opts?.isolation ?? 'read committed'];
+  // Read committed is every session's default (db/index.ts): asking for it again would cost a
+  // SET TRANSACTION round trip on every write.
+  const level = opts?.isolation ?? 'read committed';
+  const isolationLevel = level === 'read committed' ? undefined : LEVELS[level];
   const sequelize = getSequelize();
   for (let attempt = 1; ; attempt++) {
     try {
