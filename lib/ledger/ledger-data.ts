@@ -5,7 +5,7 @@ import { getSequelize } from '@/db';
 import { AppError, type ErrorKind, type FieldErrors } from '@/lib/server/errors';
 import { GRADE_CLASSES } from '@/lib/sugar/grade';
 import { ledgerRuns, settle, sugarByWeek, emptyByClass, type AllocationRow, type DeliveryRow } from './rules';
-import type { Ledger } from './types';
+import type { FullLedger } from './types';
 
 /** What the ledger's reads need: the co-op, and the transaction when the caller holds one. */
 export interface LedgerReadContext {
@@ -69,7 +69,7 @@ interface AllocationDbRow {
  * The whole co-op's ledger for a season, from five lean queries (lots grouped by household,
  * status, °Brix and week; allocations; finished runs; fees; payments). Not filtered by role.
  */
-export async function computeLedger(ctx: LedgerReadContext, season: SeasonRow): Promise<Ledger> {
+export async function computeLedger(ctx: LedgerReadContext, season: SeasonRow): Promise<FullLedger> {
   const r = { seasonId: season.id, cooperativeId: ctx.cooperativeId, tz: season.timeZone };
   const t = ctx.transaction;
   // In parallel over the pool; one after another on a transaction's single connection.

@@ -10,7 +10,7 @@ import { round, settlementRow, sumAscending } from './rules';
 import { storedAllocation } from './allocate-run';
 import { enqueueStatements } from './statement-mail';
 import { loadStatement } from './statement-data';
-import type { Ledger, Settlement, Statement } from './types';
+import type { FullLedger, Ledger, LedgerRun, Settlement, Statement } from './types';
 import type { SeasonDto } from '@/lib/coop/types';
 import { deepFreeze, processCache } from '@/lib/server/versioned-cache';
 
@@ -22,7 +22,7 @@ const requireCoordinator = (ctx: LedgerContext, what: string) => {
 };
 
 /** What a member may see: its own row, runs and statement, the co-op totals, the other names. */
-function forActor(ctx: LedgerContext, ledger: Ledger): Ledger {
+function forActor(ctx: LedgerContext, ledger: FullLedger): FullLedger {
   if (ctx.actor.role !== 'member') return ledger;
   const own = ctx.actor.householdId;
   return {
@@ -36,36 +36,59 @@ function forActor(ctx: LedgerContext, ledger: Ledger): Ledger {
   };
 }
 
-/** The whole co-op's ledger and its JSON text, built once per co-op change version. */
+/** The ledger's answer: each run with its totals; its split is asked for run by run. */
+function answer(full: FullLedger): Ledger {
+  return { ...full, runs: full.runs.map(({ allocations, ...run }) => ({ ...run, households: allocations.length })) };
+}
+
+/** The whole co-op's ledger (every run's split) and the JSON text of its answer, built once per co-op change version. */
 interface BuiltLedger {
+  full: FullLedger;
   ledger: Ledger;
   json: string;
 }
 
-// About 3 bytes of memory per character of JSON (the text and the objects it came from).
-const ledgers = processCache<BuiltLedger>('ledgers', 48 * 2 ** 20, (b) => 3 * b.json.length);
+// About 3 bytes of memory per character of JSON (the text and the objects it came from), the
+// run splits kept beside it about ten times the answer.
+const ledgers = processCache<BuiltLedger>('ledgers', 64 * 2 ** 20, (b) => 30 * b.json.length);
 
 /**
- * The ledger as the acting person may see it, with its JSON text. Every write the ledger shows
- * (lots, runs, fees, payments, statements sent, households, the season's status) bumps the
- * co-op's change version in its own transaction; the ledger is read after the version, so one
- * built at that version or later holds every change up to it, and is shared until the next
- * change. Inside a caller's transaction it is built afresh.
+ * The whole co-op's ledger of a season. Every write the ledger shows (lots, runs, fees,
+ * payments, statements sent, households, the season's status) bumps the co-op's change version
+ * as it commits; the ledger is read after the version, so one built at that version or later
+ * holds every change up to it, and is shared until the next change. Inside a caller's
+ * transaction it is built afresh.
  */
-export async function ledgerView(ctx: LedgerContext, seasonId: string, { knownVersion }: KnownVersion = {}): Promise<BuiltLedger> {
+async function wholeLedger(ctx: LedgerContext, seasonId: string, knownVersion: string | undefined): Promise<BuiltLedger> {
   const key = `${ctx.cooperativeId}:${seasonId}`;
-  let whole = knownVersion && !ctx.transaction ? ledgers.peek(key, knownVersion) : undefined;
-  if (!whole) {
-    const season = await seasonOf(ctx, seasonId);
-    const build = async (): Promise<BuiltLedger> => {
-      const ledger = deepFreeze(await computeLedger(ctx, season));
-      return { ledger, json: JSON.stringify(ledger) };
-    };
-    whole = ctx.transaction ? await build() : await ledgers.get(key, season.changeVersion, build);
-  }
+  const kept = knownVersion && !ctx.transaction ? ledgers.peek(key, knownVersion) : undefined;
+  if (kept) return kept;
+  const season = await seasonOf(ctx, seasonId);
+  const build = async (): Promise<BuiltLedger> => {
+    const full = deepFreeze(await computeLedger(ctx, season));
+    const ledger = deepFreeze(answer(full));
+    return { full, ledger, json: JSON.stringify(ledger) };
+  };
+  return ctx.transaction ? build() : ledgers.get(key, season.changeVersion, build);
+}
+
+/** The ledger as the acting person may see it, with its JSON text. */
+export async function ledgerView(ctx: LedgerContext, seasonId: string, { knownVersion }: KnownVersion = {}): Promise<{ ledger: Ledger; json: string }> {
+  const whole = await wholeLedger(ctx, seasonId, knownVersion);
   if (ctx.actor.role !== 'member') return whole;
-  const own = forActor(ctx, whole.ledger);
+  const own = answer(forActor(ctx, whole.full));
   return { ledger: own, json: JSON.stringify(own) };
+}
+
+/**
+ * GET /api/seasons/:id/ledger/runs/:runId — one finished run's split between the households
+ * whose sap went into it (a member: its own part, and 404 for a run without its sap).
+ */
+export async function ledgerRun(ctx: LedgerContext, seasonId: string, runId: string, { knownVersion }: KnownVersion = {}): Promise<LedgerRun> {
+  const whole = await wholeLedger(ctx, seasonId, knownVersion);
+  const run = forActor(ctx, { ...whole.full, runs: whole.full.runs.filter((r) => r.runId === runId) }).runs[0];
+  if (!run) throw fail('not_found', 'not_found', 'That run was not found among this season’s finished runs.');
+  return run;
 }
 
 /**

@@ -63,13 +63,20 @@ export interface LedgerRunAllocation {
   fuelCents: number;
 }
 
-export interface LedgerRun {
+/** One finished run in the ledger's list: its totals (its split is asked for run by run). */
+export interface LedgerRunSummary {
   runId: string;
   lotCode: string | null;
   finishedAt: string | null;
   syrupMl: number;
   fuelCents: number;
   sugarKg: number;
+  /** Households whose sap went into the run (a member's list shows only its own runs). */
+  households: number;
+}
+
+/** GET /api/seasons/:id/ledger/runs/:runId — one run's split between households. */
+export interface LedgerRun extends Omit<LedgerRunSummary, 'households'> {
   allocations: LedgerRunAllocation[];
 }
 
@@ -97,10 +104,16 @@ export interface Ledger {
     balanceCents: number;
     syrupByClassMl: SyrupByClass;
   };
-  runs: LedgerRun[];
+  /** Finished runs, oldest first; each run's split is GET /api/seasons/:id/ledger/runs/:runId. */
+  runs: LedgerRunSummary[];
   weeks: LedgerWeek[];
   /** Statement ids per household once the season is settled. */
   statements: { id: string; householdId: string; sentAt: string | null }[];
+}
+
+/** The ledger as computed, with every run's split (kept on the server; answered in parts). */
+export interface FullLedger extends Omit<Ledger, 'runs'> {
+  runs: LedgerRun[];
 }
 
 /** One household's statement: the settlement row frozen at settlement time, with what was paid. */

@@ -17,6 +17,12 @@ test.describe('settling the season', () => {
     await expect(page.getByRole('heading', { name: 'By volume, for comparison' })).toBeVisible();
     await expect(page.getByTestId('ledger-row-Okafor')).toBeVisible();
     await expect(page.getByTestId('volume-row-Okafor')).toBeVisible();
+    // A run's split is fetched when the run is opened: its households, each with its syrup.
+    const firstRun = page.locator('section[aria-labelledby="runs"] details').first();
+    await expect(firstRun.getByRole('table')).toHaveCount(0);
+    await firstRun.locator('summary').click();
+    await expect(firstRun.getByRole('rowheader').first()).toBeVisible();
+    expect(await firstRun.getByRole('rowheader').count()).toBeGreaterThan(0);
     await page.screenshot({ path: '.tmp/screens/ledger-desktop.png', fullPage: true });
 
     // A season fee for one household: a wrong amount is refused at the field, a right one shows in its row.

@@ -73,6 +73,17 @@ async function slot(coop: string, household: string) {
   return r.id;
 }
 
+/** A finished run of the season whose sap came (or did not come) from the household. */
+async function runWith(season: string, household: string, withIt: boolean) {
+  const [r] = await rows<{ run: string }>(
+    `SELECT run_id AS run FROM allocations WHERE season_id = :season GROUP BY run_id
+      HAVING bool_or(household_id = :household) = :withIt ORDER BY run_id LIMIT 1`,
+    { season, household, withIt },
+  );
+  if (!r) throw new Error(`no run ${withIt ? 'with' : 'without'} that household's sap in the demo season`);
+  return r.run;
+}
+
 async function evaporator(coop: string) {
   const [r] = await rows<{ id: string }>(
     "INSERT INTO evaporators (cooperative_id, name, evaporation_lph, fuel_kind) VALUES (:coop, :name, 120, 'wood') RETURNING id",
@@ -317,6 +328,33 @@ const TABLE: Case[] = [
   // already (409) or a no-op, so the open season other tests use stays open.
   { route: 'GET /api/seasons/[id]/ledger', scope: 'co-op', expect: everyone(200), request: async (f) => ({ path: `/api/seasons/${f.own.season}/ledger` }) },
   { route: 'GET /api/seasons/[id]/ledger', scope: 'other-coop', expect: otherCoop(), request: async (f) => ({ path: `/api/seasons/${f.other.openSeasonId}/ledger` }) },
+  // One run's split (last year's settled season): a member sees its own part of a run its sap went into, nothing else.
+  {
+    route: 'GET /api/seasons/[id]/ledger/runs/[runId]',
+    scope: 'own-household',
+    expect: everyone(200),
+    request: async (f) => ({ path: `/api/seasons/${f.own.lastSeason}/ledger/runs/${await runWith(f.own.lastSeason, f.own.brennan, true)}` }),
+    check: (body, actor, f) => {
+      const ids = (body as { allocations: { householdId: string }[] }).allocations.map((a) => a.householdId);
+      expect(ids).toContain(f.own.brennan);
+      if (actor === 'member') expect(ids).toEqual([f.own.brennan]);
+    },
+  },
+  {
+    route: 'GET /api/seasons/[id]/ledger/runs/[runId]',
+    scope: 'other-household',
+    expect: staffOnly(200, 404),
+    request: async (f) => ({ path: `/api/seasons/${f.own.lastSeason}/ledger/runs/${await runWith(f.own.lastSeason, f.own.brennan, false)}` }),
+  },
+  {
+    route: 'GET /api/seasons/[id]/ledger/runs/[runId]',
+    scope: 'other-coop',
+    expect: otherCoop(),
+    request: async (f) => {
+      const [r] = await rows<{ run: string; season: string }>('SELECT run_id AS run, season_id AS season FROM allocations WHERE cooperative_id = :coop LIMIT 1', { coop: f.other.cooperativeId });
+      return { path: `/api/seasons/${r?.season ?? f.other.openSeasonId}/ledger/runs/${r?.run ?? randomUUID()}` };
+    },
+  },
   {
     route: 'GET /api/seasons/[id]/settlement',
     scope: 'co-op',

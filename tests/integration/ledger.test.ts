@@ -111,13 +111,49 @@ describe('the settlement by sugar (worked example of three households)', () => {
     ).rejects.toThrow(/sap_deliveries_boiled_only_accepted/);
   });
 
+  it('lists each run with its totals and answers its split run by run, to the millilitre and the cent', async () => {
+    const l = (await coordinator.get(`/api/seasons/${ex.seasonId}/ledger`)).body;
+    expect(l.runs.map(({ runId, syrupMl, fuelCents, households, allocations }: Record<string, unknown>) => ({ runId, syrupMl, fuelCents, households, allocations }))).toEqual([
+      { runId: ex.runs.run1, syrupMl: 15900, fuelCents: 13000, households: 2, allocations: undefined },
+      { runId: ex.runs.run2, syrupMl: 7500, fuelCents: 6500, households: 2, allocations: undefined },
+    ]);
+    const split = async (runId: string) => {
+      const res = await coordinator.get(`/api/seasons/${ex.seasonId}/ledger/runs/${runId}`);
+      expect(res.status).toBe(200);
+      const byHousehold = Object.fromEntries(
+        res.body.allocations.map((a: { householdId: string; syrupByClassMl: Record<string, number>; fuelCents: number }) => [a.householdId, { ...a.syrupByClassMl, fuel: a.fuelCents }]),
+      );
+      return { ...res.body, byHousehold };
+    };
+    // The hand-worked split at the top of this file.
+    const run1 = await split(ex.runs.run1);
+    expect(run1).toMatchObject({ runId: ex.runs.run1, syrupMl: 15900, fuelCents: 13000 });
+    expect(run1.byHousehold).toEqual({
+      [ex.households.ash]: { golden: 4806, amber: 7929, dark: 0, 'very-dark': 0, fuel: 10412 },
+      [ex.households.birch]: { golden: 1194, amber: 1971, dark: 0, 'very-dark': 0, fuel: 2588 },
+    });
+    const run2 = await split(ex.runs.run2);
+    expect(run2.byHousehold).toEqual({
+      [ex.households.birch]: { golden: 0, amber: 0, dark: 3211, 'very-dark': 0, fuel: 2783 },
+      [ex.households.cedar]: { golden: 0, amber: 0, dark: 4289, 'very-dark': 0, fuel: 3717 },
+    });
+    // A run of another season, or no run at all: not found.
+    expect((await coordinator.get(`/api/seasons/${ex.seasonId}/ledger/runs/${ex.lots.cedarRejected}`)).status).toBe(404);
+    expect((await coordinator.get(`/api/seasons/${ex.seasonId}/ledger/runs/not-a-run`)).status).toBe(404);
+  });
+
   it('shows a member its own household only, with the others’ names and the co-op totals', async () => {
     const s = await birch.get(`/api/seasons/${ex.seasonId}/settlement`);
     expect(s.body.households.map((h: { name: string }) => h.name)).toEqual(['Birch']);
     expect(s.body.totals).toEqual({ sugarKg: 22.1671, syrupMl: 23400, fuelCents: 19500 });
     const l = (await birch.get(`/api/seasons/${ex.seasonId}/ledger`)).body;
     expect(l.householdNames.map((h: { name: string }) => h.name)).toEqual(['Ash', 'Birch', 'Cedar']);
-    expect(l.runs.flatMap((r: { allocations: { householdId: string }[] }) => r.allocations.map((a) => a.householdId))).toEqual([ex.households.birch, ex.households.birch]);
+    expect(l.runs.map((r: { runId: string }) => r.runId)).toEqual([ex.runs.run1, ex.runs.run2]);
+    for (const runId of [ex.runs.run1, ex.runs.run2]) {
+      const split = await birch.get(`/api/seasons/${ex.seasonId}/ledger/runs/${runId}`);
+      expect(split.status).toBe(200);
+      expect(split.body.allocations.map((a: { householdId: string }) => a.householdId)).toEqual([ex.households.birch]);
+    }
     expect(JSON.stringify(l)).not.toContain('"name":"Ash","sapL"');
     expect(Object.keys(l.weeks.reduce((a: object, w: { sugarKg: object }) => ({ ...a, ...w.sugarKg }), {}))).toEqual([ex.households.birch]);
   });

@@ -14,6 +14,7 @@ import { buttonVariants } from '@/components/ui/button';
 import { SeasonActions } from '@/components/ledger/season-actions';
 import { SeasonFees } from '@/components/ledger/season-fees';
 import { SugarChartLazy } from '@/components/ledger/sugar-chart-lazy';
+import { RunSplits } from '@/components/ledger/run-splits';
 
 export const metadata: Metadata = { title: 'Season ledger' };
 
@@ -204,46 +205,7 @@ export default async function LedgerPage({ searchParams }: { searchParams: Promi
         {ledger.runs.length === 0 ? (
           <p className="text-slate-muted">No finished runs in this season yet.</p>
         ) : (
-          <ul className="flex flex-col gap-2">
-            {ledger.runs.map((run) => (
-              <li key={run.runId}>
-                <details className="rounded-lg border border-birch-line bg-birch-raised">
-                  <summary className="flex min-h-touch cursor-pointer flex-wrap items-center gap-x-4 px-3 py-2">
-                    <span className="font-semibold">Run {run.lotCode}</span>
-                    <span className="text-slate-muted">{run.finishedAt?.slice(0, 10)}</span>
-                    <span>{formatSyrup(run.syrupMl, u)} syrup</span>
-                    <span>{money(run.fuelCents)} fuel</span>
-                  </summary>
-                  <div className="px-3 pb-3">
-                    <Table stack>
-                      <THead>
-                        <TR>
-                          <TH>Household</TH>
-                          <TH numeric>Sap in</TH>
-                          <TH numeric>Sugar</TH>
-                          <TH numeric>Share</TH>
-                          <TH numeric>Syrup</TH>
-                          <TH numeric>Fuel</TH>
-                        </TR>
-                      </THead>
-                      <TBody>
-                        {run.allocations.map((a) => (
-                          <TR key={a.householdId}>
-                            <TH scope="row">{nameOf.get(a.householdId)}</TH>
-                            <TD label="Sap in" numeric>{showVolume(a.sapL, u)}</TD>
-                            <TD label="Sugar" numeric>{showMass(a.sugarKg, u)}</TD>
-                            <TD label="Share" numeric>{formatShare(a.share)}</TD>
-                            <TD label="Syrup" numeric>{formatSyrup(a.syrupMl, u)}</TD>
-                            <TD label="Fuel" numeric>{money(a.fuelCents)}</TD>
-                          </TR>
-                        ))}
-                      </TBody>
-                    </Table>
-                  </div>
-                </details>
-              </li>
-            ))}
-          </ul>
+          <RunSplits seasonId={season.id} runs={ledger.runs} names={Object.fromEntries(nameOf)} unitSystem={u} currency={ledger.currency} />
         )}
       </section>
     </div>
