@@ -2,83 +2,53 @@
 
 import Link from 'next/link';
 import { usePathname } from 'next/navigation';
-import { useState } from 'react';
-import { signOut } from 'next-auth/react';
-import * as RadixDialog from '@radix-ui/react-dialog';
+import { useRef, useState } from 'react';
+import dynamic from 'next/dynamic';
 import { cn } from '@/lib/utils';
 import { isCurrent, type RoleNav } from './nav-items';
+import { tabClass } from './tab-class';
+
+const MoreSheet = dynamic(() => import('./more-sheet'), { ssr: false });
 
 interface AppNavProps {
   nav: RoleNav;
 }
 
-const tabClass = (active: boolean) =>
-  cn(
-    'flex min-h-touch min-w-touch items-center justify-center rounded-lg px-2 text-center font-semibold leading-tight',
-    'focus-visible:outline-3 focus-visible:outline-offset-2 focus-visible:outline-spruce',
-    active ? 'bg-spruce text-birch-raised' : 'text-slate hover:bg-spruce-soft',
-  );
-
 /**
  * The signed-in navigation. The four daily jobs are always one tap away (a tab bar at the
  * bottom of a phone, a bar under the header from tablet width up); everything else sits behind
- * one "More" button that opens a dialog (focus moves in, Escape closes, focus comes back).
+ * one "More" button that opens a dialog (focus moves in, Escape closes, focus comes back;
+ * components/shell/more-sheet.tsx).
  */
 export function AppNav({ nav }: AppNavProps) {
   const pathname = usePathname();
   const [open, setOpen] = useState(false);
   const moreCurrent = nav.more.some((i) => isCurrent(pathname, i.href));
 
+  const trigger = useRef<HTMLButtonElement>(null);
+  // The dialog's code (its focus handling and sign-out) loads when it is first wanted: on a
+  // pointer over the button or focus on it, so it is there by the tap.
+  const [wanted, setWanted] = useState(false);
   const more = (
-    <RadixDialog.Root open={open} onOpenChange={setOpen}>
-      <RadixDialog.Trigger
+    <>
+      <button
+        ref={trigger}
+        type="button"
         className={cn(tabClass(moreCurrent), 'w-full md:w-auto md:px-4')}
         aria-haspopup="dialog"
+        aria-expanded={open}
         data-testid="nav-more"
+        onPointerEnter={() => setWanted(true)}
+        onFocus={() => setWanted(true)}
+        onClick={() => {
+          setWanted(true);
+          setOpen(true);
+        }}
       >
         More
-      </RadixDialog.Trigger>
-      <RadixDialog.Portal>
-        <RadixDialog.Overlay className="fixed inset-0 z-40 bg-slate/50" />
-        <RadixDialog.Content
-          className={cn(
-            'fixed z-50 flex flex-col gap-3 bg-birch-raised text-slate shadow-xl',
-            'inset-x-0 bottom-0 max-h-[85dvh] overflow-y-auto rounded-t-2xl border-t border-birch-line p-4 pb-[max(1rem,env(safe-area-inset-bottom))]',
-            'md:inset-x-auto md:bottom-auto md:right-4 md:top-16 md:w-80 md:rounded-2xl md:border',
-          )}
-        >
-          <div className="flex items-center justify-between gap-3">
-            <RadixDialog.Title className="text-lg font-bold">More</RadixDialog.Title>
-            <RadixDialog.Close className={cn(tabClass(false), 'px-3')}>Close</RadixDialog.Close>
-          </div>
-          <RadixDialog.Description className="sr-only">The rest of Brixhouse. Press Escape to close.</RadixDialog.Description>
-          <nav aria-label="More">
-            <ul className="flex flex-col gap-1">
-              {nav.more.map((item) => {
-                const active = isCurrent(pathname, item.href);
-                return (
-                  <li key={item.href}>
-                    <Link
-                      href={item.href}
-                      aria-current={active ? 'page' : undefined}
-                      onClick={() => setOpen(false)}
-                      className={cn(tabClass(active), 'w-full justify-start px-3')}
-                    >
-                      {item.label}
-                    </Link>
-                  </li>
-                );
-              })}
-              <li className="mt-2 border-t border-birch-line pt-2">
-                <button type="button" className={cn(tabClass(false), 'w-full justify-start px-3')} onClick={() => void signOut({ callbackUrl: '/sign-in' })}>
-                  Sign out
-                </button>
-              </li>
-            </ul>
-          </nav>
-        </RadixDialog.Content>
-      </RadixDialog.Portal>
-    </RadixDialog.Root>
+      </button>
+      {wanted && <MoreSheet open={open} onOpenChange={setOpen} items={nav.more} pathname={pathname} returnFocusTo={trigger} />}
+    </>
   );
 
   return (

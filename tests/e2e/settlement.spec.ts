@@ -23,6 +23,10 @@ test.describe('settling the season', () => {
     await firstRun.locator('summary').click();
     await expect(firstRun.getByRole('rowheader').first()).toBeVisible();
     expect(await firstRun.getByRole('rowheader').count()).toBeGreaterThan(0);
+    // The chart's library loads when its box comes into view, then draws the weeks.
+    const chart = page.getByRole('img', { name: /Sugar delivered per week by household/ });
+    await chart.scrollIntoViewIfNeeded();
+    await expect(chart.locator('svg.recharts-surface').first()).toBeVisible();
     await page.screenshot({ path: '.tmp/screens/ledger-desktop.png', fullPage: true });
 
     // A season fee for one household: a wrong amount is refused at the field, a right one shows in its row.
