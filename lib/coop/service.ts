@@ -6,8 +6,22 @@ import type { Ctx } from '@/lib/server/context';
 /** Reads of the co-op's own records need only its id (a display, a worker or a person may ask). */
 type CoopScope = Pick<Ctx, 'cooperativeId' | 'transaction'>;
 import { notFound } from '@/lib/server/errors';
+import { processCache } from '@/lib/server/versioned-cache';
 import type { SeasonDto, EvaporatorDto } from './types';
 export type { SeasonDto, EvaporatorDto };
+
+// A co-op's seasons are a few hundred bytes of JSON.
+const seasonLists = processCache<string>('season-lists', 2 * 2 ** 20, (json) => 2 * json.length);
+
+/**
+ * `GET /api/seasons` as JSON text, kept per co-op change version (closing and settling a season
+ * bump it). `knownVersion` is the version read with the person in this request.
+ */
+export async function seasonsJson(ctx: CoopScope, { knownVersion }: { knownVersion?: string } = {}): Promise<string> {
+  const build = async () => JSON.stringify(await listSeasons(ctx));
+  if (!knownVersion || ctx.transaction) return build();
+  return seasonLists.get(ctx.cooperativeId, knownVersion, build);
+}
 
 /** The co-op's seasons, newest first: one query of plain rows. */
 export async function listSeasons(ctx: CoopScope): Promise<SeasonDto[]> {

@@ -7,7 +7,8 @@ import { AppError, conflict, invalid, invalidField, notFound } from '@/lib/serve
 import { authorize, can } from '@/lib/server/policies';
 import { withTransaction } from '@/lib/server/tx';
 import { getCooperative } from '@/lib/coop/service';
-import type { Actor } from '@/lib/server/actor';
+import { isStaff, type Actor } from '@/lib/server/actor';
+import { processCache } from '@/lib/server/versioned-cache';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { slotIcs } from '@/lib/mail/ics';
 import { broadcast } from '@/lib/realtime';
@@ -75,6 +76,23 @@ export async function listSlots(ctx: Ctx, { from, to }: { from: string; to: stri
     transaction: ctx.transaction,
   });
   return rows.map(({ timeZone, ...slot }) => toDto(slot, slot.householdName, ctx.actor, timeZone));
+}
+
+// One week of a co-op's slots is a few kilobytes of JSON; about 2 bytes of memory per character.
+const slotLists = processCache<string>('slot-lists', 16 * 2 ** 20, (json) => 2 * json.length);
+
+/**
+ * `GET /api/slots` as JSON text, kept per co-op change version (every booking, move and
+ * cancellation bumps it) for each range and view: staff see every slot's details, a member its
+ * own household's. `knownVersion` is the version read with the person in this request.
+ */
+export async function slotsJson(ctx: Ctx, query: { from: string; to: string }, { knownVersion }: { knownVersion?: string } = {}): Promise<string> {
+  const build = async () => JSON.stringify(await listSlots(ctx, query));
+  if (!knownVersion || ctx.transaction) return build();
+  authorize(ctx.actor, 'slot.list');
+  const view = isStaff(ctx.actor) ? 'staff' : ctx.actor.kind === 'person' ? `household:${ctx.actor.householdId ?? 'none'}` : 'none';
+  // The list is read after the version was, so it holds every change up to it.
+  return slotLists.get(`${ctx.cooperativeId}|${view}|${query.from}|${query.to}`, knownVersion, build);
 }
 
 /** The next booked slots, for the Today page (one household's, or everyone's). */

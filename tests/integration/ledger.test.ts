@@ -232,9 +232,15 @@ describe('closing the season', () => {
     expect(refused.body.error.code).toBe('run_running');
     await testDb().query(`DELETE FROM boil_runs WHERE id = :id`, { replacements: { id: running } });
 
+    // The season list (kept per change of the co-op) is read first, so a kept copy exists.
+    const statusIn = async (who: Client) => ((await who.get('/api/seasons')).body as { id: string; status: string }[]).find((x) => x.id === ex.seasonId)?.status;
+    expect(await statusIn(coordinator)).toBe('open');
+    expect(await statusIn(birch)).toBe('open');
     const closed = await coordinator.post(`/api/seasons/${ex.seasonId}/close`);
     expect(closed.status).toBe(200);
     expect(closed.body.status).toBe('closed');
+    expect(await statusIn(coordinator)).toBe('closed');
+    expect(await statusIn(birch)).toBe('closed');
     const reopen = await coordinator.post(`/api/runs/${ex.runs.run1}/reopen`, { reason: 'too late' });
     expect(reopen.status).toBe(409);
     expect(reopen.body.error.code).toBe('season_not_open');

@@ -129,6 +129,29 @@ describe('booking a slot', () => {
     expect(slot).toMatchObject({ householdName: 'Okafor', crew: [], note: null, editable: false });
   });
 
+  it('lists a booking, a move and a cancellation at once to staff and members (the kept lists follow every change)', async () => {
+    const range = `from=${encodeURIComponent(at(23, 0))}&to=${encodeURIComponent(at(24, 0))}`;
+    const listed = async (who: Client) => {
+      const res = await who.get(`/api/slots?${range}`);
+      expect(res.status).toBe(200);
+      return res.body as { id: string; startsAt: string; status: string; note: string | null }[];
+    };
+    // Read first, so a list of this range is kept before the changes.
+    for (const who of [sugarmaker, okafor, lindqvist]) await listed(who);
+    const r = await okafor.post('/api/slots', { evaporatorId, startsAt: at(23, 9), endsAt: at(23, 11), note: 'Kept list check' });
+    expect(r.status).toBe(201);
+    for (const who of [sugarmaker, okafor, lindqvist]) expect((await listed(who)).map((x) => x.id)).toContain(r.body.id);
+    // Its own household sees the note; another household does not.
+    expect((await listed(okafor)).find((x) => x.id === r.body.id)?.note).toBe('Kept list check');
+    expect((await listed(lindqvist)).find((x) => x.id === r.body.id)?.note).toBeNull();
+    expect((await okafor.patch(`/api/slots/${r.body.id}`, { startsAt: at(23, 13), endsAt: at(23, 15) })).status).toBe(200);
+    for (const who of [sugarmaker, okafor, lindqvist]) {
+      expect(DateTime.fromISO((await listed(who)).find((x) => x.id === r.body.id)!.startsAt).toMillis()).toBe(DateTime.fromISO(at(23, 13)).toMillis());
+    }
+    expect((await okafor.delete(`/api/slots/${r.body.id}`)).status).toBe(200);
+    for (const who of [sugarmaker, okafor, lindqvist]) expect((await listed(who)).find((x) => x.id === r.body.id)?.status ?? 'cancelled').toBe('cancelled');
+  });
+
   it('does not let a member cancel inside the notice period', async () => {
     const soon = DateTime.now().setZone(ZONE).plus({ hours: 3 });
     // A second evaporator of its own, so this slot cannot meet the demo bookings.

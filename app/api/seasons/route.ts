@@ -1,4 +1,8 @@
 import { route } from '@/lib/server/route';
-import { listSeasons } from '@/lib/coop/service';
+import { seasonsJson } from '@/lib/coop/service';
 
-export const GET = route(async ({ ctx }) => listSeasons(ctx));
+export const GET = route(async ({ ctx }) => {
+  // Nothing was written in this request: the version read with the person may pick a kept list.
+  const body = await seasonsJson(ctx, { knownVersion: ctx.changeVersion });
+  return new Response(body, { headers: { 'content-type': 'application/json' } });
+});

@@ -1,8 +1,12 @@
 import { json, readJson, readQuery } from '@/lib/server/http';
 import { route } from '@/lib/server/route';
-import { createSlot, listSlots } from '@/lib/slots/service';
+import { createSlot, slotsJson } from '@/lib/slots/service';
 import { SlotInput, SlotQuery } from '@/lib/slots/schema';
 
-export const GET = route(async ({ ctx, req }) => listSlots(ctx, readQuery(req, SlotQuery)));
+export const GET = route(async ({ ctx, req }) => {
+  // Nothing was written in this request: the version read with the person may pick a kept list.
+  const body = await slotsJson(ctx, readQuery(req, SlotQuery), { knownVersion: ctx.changeVersion });
+  return new Response(body, { headers: { 'content-type': 'application/json' } });
+});
 
 export const POST = route(async ({ ctx, req }) => json(await createSlot(ctx, await readJson(req, SlotInput)), 201));
