@@ -6,6 +6,7 @@ import { planBoiling, type WaitingLot } from '@/lib/planning/rules';
 import { collectionStart } from '@/lib/deliveries/rules';
 import { spoilageDeadline } from '@/lib/sugar';
 import type { PlanningDto } from './types';
+import { processCache } from '@/lib/server/versioned-cache';
 export type { PlanningDto };
 
 interface PlanningRow {
@@ -40,6 +41,22 @@ SELECT c.time_zone AS "timeZone", c.syrup_brix AS "syrupBrix", c.shelf_days AS "
          WHERE b.cooperative_id = c.id AND b.evaporator_id = e.id AND b.status = 'booked' AND b.ends_at > $now) AS slots
   FROM cooperatives c LEFT JOIN e ON true
  WHERE c.id = $cooperativeId`;
+
+// One co-op's planning strip is a few kilobytes of JSON.
+const plans = processCache<string>('planning', 4 * 2 ** 20, (json) => 2 * json.length);
+/** The strip's times run from the moment it is worked out: a kept one serves for this long. */
+const PLAN_FRESH_MS = 5_000;
+
+/**
+ * `GET /api/planning` as JSON text, kept per co-op change version (lots, runs, bookings and
+ * settings all bump it) for at most five seconds, since its times count from the present.
+ * `knownVersion` is the version read with the person in this request.
+ */
+export async function planningJson(ctx: Ctx, { knownVersion, now = new Date() }: { knownVersion?: string; now?: Date } = {}): Promise<string> {
+  const build = async () => JSON.stringify(await getPlanning(ctx, { now }));
+  if (!knownVersion || ctx.transaction) return build();
+  return plans.get(`${ctx.cooperativeId}|${Math.floor(now.getTime() / PLAN_FRESH_MS)}`, knownVersion, build);
+}
 
 /** The planning strip of the Boil calendar for a co-op's first evaporator: one query, plain rows. */
 export async function getPlanning(ctx: Ctx, { now = new Date() }: { now?: Date } = {}): Promise<PlanningDto> {

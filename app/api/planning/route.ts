@@ -1,4 +1,8 @@
 import { route } from '@/lib/server/route';
-import { getPlanning } from '@/lib/planning/service';
+import { planningJson } from '@/lib/planning/service';
 
-export const GET = route(async ({ ctx }) => getPlanning(ctx));
+export const GET = route(async ({ ctx }) => {
+  // Nothing was written in this request: the version read with the person may pick a kept strip.
+  const body = await planningJson(ctx, { knownVersion: ctx.changeVersion });
+  return new Response(body, { headers: { 'content-type': 'application/json' } });
+});
