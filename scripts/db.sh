@@ -95,7 +95,7 @@ explain() {
 case "${1:-start}" in
   start) start ;;
   stop) stop ;;
-  restart) "${RUN[@]}" "$PGBIN/pg_ctl" -D "$PG_DATA" -w -s -m fast restart > /dev/null ;;
+  restart) "${RUN[@]}" "$PGBIN/pg_ctl" -D "$PG_DATA" -l "$PG_DATA/server.log" -w -s -m fast restart > /dev/null ;;
   status) "${RUN[@]}" "$PGBIN/pg_ctl" -D "$PG_DATA" status ;;
   reset) reset "$2" "${3:-}" ;;
   explain) explain "$2" ;;

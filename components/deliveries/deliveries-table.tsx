@@ -12,7 +12,11 @@ import { fetcher } from '@/lib/client/api';
 import type { DeliveryDto } from '@/lib/deliveries/types';
 import { kgToPounds, type UnitSystem } from '@/lib/sugar';
 import { brix as fmtBrix, formatWhen, mass, massUnit, vol, volumeNumber, volumeUnit } from './format';
-import { DeliveryDetails } from './delivery-details';
+import dynamic from 'next/dynamic';
+
+// The lot's details dialog (its form for corrections, the dialog's focus handling) loads the first
+// time a lot is opened, not with the page.
+const DeliveryDetails = dynamic(() => import('./delivery-details').then((m) => m.DeliveryDetails), { ssr: false });
 
 export interface DeliveriesTableProps {
   units: UnitSystem;
@@ -53,6 +57,8 @@ export function DeliveriesTable({ units, timeZone, seasonId, households, canCorr
   const [filters, setFilters] = useState<Filters>({ householdId: '', status: '', day: '' });
   const [sorting, setSorting] = useState<SortingState>([]);
   const [openId, setOpenId] = useState<string | null>(null);
+  // Kept once opened, so the dialog can close and hand focus back.
+  const [detailsWanted, setDetailsWanted] = useState(false);
   const [limit, setLimit] = useState(PAGE);
   const url = deliveriesUrl(seasonId, filters);
   const first = deliveriesUrl(seasonId, { householdId: '', status: '', day: '' });
@@ -93,7 +99,10 @@ export function DeliveriesTable({ units, timeZone, seasonId, households, canCorr
         id: 'open',
         header: () => <span className="sr-only">Details</span>,
         cell: (c) => (
-          <Button variant="ghost" size="sm" onClick={() => setOpenId(c.row.original.id)} aria-label={`Details of the lot received ${formatWhen(c.row.original.receivedAt, timeZone)}`}>
+          <Button variant="ghost" size="sm" onClick={() => {
+              setDetailsWanted(true);
+              setOpenId(c.row.original.id);
+            }} aria-label={`Details of the lot received ${formatWhen(c.row.original.receivedAt, timeZone)}`}>
             Details
           </Button>
         ),
@@ -274,7 +283,9 @@ export function DeliveriesTable({ units, timeZone, seasonId, households, canCorr
         </div>
       ) : null}
 
-      <DeliveryDetails id={openId} onClose={() => setOpenId(null)} units={units} timeZone={timeZone} households={households} canCorrect={canCorrect} />
+      {detailsWanted ? (
+        <DeliveryDetails id={openId} onClose={() => setOpenId(null)} units={units} timeZone={timeZone} households={households} canCorrect={canCorrect} />
+      ) : null}
     </div>
   );
 }
