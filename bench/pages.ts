@@ -105,12 +105,13 @@ export async function pages(appUrl: string, cookie: string, { runs, log }: { run
       );
       continue;
     }
-    const vsFloor = floor ? { baseline: floor.label, ratio: floor.perf ? perf.value / floor.perf : null } : { baseline: null, ratio: null };
+    const against = (floorValue: number | undefined, value: number) =>
+      floor ? { baseline: floor.label, ratio: floorValue ? value / floorValue : null } : { baseline: null, ratio: null };
     figures.push(
-      { section: 'pages', name: `${label}: performance`, unit: '', target: '≥ 0.9', met: perf.value >= 0.9, ...vsFloor, ...perf },
+      { section: 'pages', name: `${label}: performance`, unit: '', target: '≥ 0.9', met: perf.value >= 0.9, ...against(floor?.perf, perf.value), ...perf },
       { section: 'pages', name: `${label}: accessibility`, unit: '', baseline: null, ratio: null, target: '≥ 0.95', met: a11y.value >= 0.95, ...a11y },
       { section: 'pages', name: `${label}: CLS`, unit: '', baseline: null, ratio: null, target: '≤ 0.1', met: cls.value <= 0.1, ...cls },
-      { section: 'pages', name: `${label}: total blocking time`, unit: 'ms', target: null, met: null, ...(floor ? { baseline: floor.label, ratio: floor.tbt ? tbt.value / floor.tbt : null } : { baseline: null, ratio: null }), ...tbt },
+      { section: 'pages', name: `${label}: total blocking time`, unit: 'ms', target: null, met: null, ...against(floor?.tbt, tbt.value), ...tbt },
       { section: 'pages', name: `${label}: largest contentful paint`, unit: 'ms', baseline: null, ratio: null, target: null, met: null, ...lcp },
     );
   }

@@ -1,6 +1,7 @@
 'use client';
 
 import { useMemo, useState } from 'react';
+import dynamic from 'next/dynamic';
 import useSWR from 'swr';
 import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type RowData, type SortingState } from '@tanstack/react-table';
 import { Badge } from '@/components/ui/badge';
@@ -12,7 +13,6 @@ import { fetcher } from '@/lib/client/api';
 import type { DeliveryDto } from '@/lib/deliveries/types';
 import { kgToPounds, type UnitSystem } from '@/lib/sugar';
 import { brix as fmtBrix, formatWhen, mass, massUnit, vol, volumeNumber, volumeUnit } from './format';
-import dynamic from 'next/dynamic';
 
 // The lot's details dialog (its form for corrections, the dialog's focus handling) loads the first
 // time a lot is opened, not with the page.
@@ -99,10 +99,15 @@ export function DeliveriesTable({ units, timeZone, seasonId, households, canCorr
         id: 'open',
         header: () => <span className="sr-only">Details</span>,
         cell: (c) => (
-          <Button variant="ghost" size="sm" onClick={() => {
+          <Button
+            variant="ghost"
+            size="sm"
+            onClick={() => {
               setDetailsWanted(true);
               setOpenId(c.row.original.id);
-            }} aria-label={`Details of the lot received ${formatWhen(c.row.original.receivedAt, timeZone)}`}>
+            }}
+            aria-label={`Details of the lot received ${formatWhen(c.row.original.receivedAt, timeZone)}`}
+          >
             Details
           </Button>
         ),

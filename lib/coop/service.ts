@@ -6,7 +6,7 @@ import type { Ctx } from '@/lib/server/context';
 /** Reads of the co-op's own records need only its id (a display, a worker or a person may ask). */
 type CoopScope = Pick<Ctx, 'cooperativeId' | 'transaction'>;
 import { notFound } from '@/lib/server/errors';
-import { processCache } from '@/lib/server/versioned-cache';
+import { keptJson, processCache } from '@/lib/server/versioned-cache';
 import type { SeasonDto, EvaporatorDto } from './types';
 export type { SeasonDto, EvaporatorDto };
 
@@ -18,9 +18,7 @@ const seasonLists = processCache<string>('season-lists', 2 * 2 ** 20, (json) => 
  * bump it). `knownVersion` is the version read with the person in this request.
  */
 export async function seasonsJson(ctx: CoopScope, { knownVersion }: { knownVersion?: string } = {}): Promise<string> {
-  const build = async () => JSON.stringify(await listSeasons(ctx));
-  if (!knownVersion || ctx.transaction) return build();
-  return seasonLists.get(ctx.cooperativeId, knownVersion, build);
+  return keptJson(seasonLists, ctx.cooperativeId, { knownVersion, transaction: ctx.transaction }, () => listSeasons(ctx));
 }
 
 /** The co-op's seasons, newest first: one query of plain rows. */

@@ -9,7 +9,7 @@ import { registerConstraints } from '@/lib/server/db-errors';
 import { invalid, notFound } from '@/lib/server/errors';
 import { authorize, can } from '@/lib/server/policies';
 import { withTransaction } from '@/lib/server/tx';
-import { processCache } from '@/lib/server/versioned-cache';
+import { keptJson, processCache } from '@/lib/server/versioned-cache';
 import { isCoopKey, photoExists } from '@/lib/storage';
 import { sugarKg, type UnitSystem } from '@/lib/sugar';
 import { localDay, toZonedIso } from '@/lib/time';
@@ -173,14 +173,11 @@ const lists = processCache<string>('delivery-lists', 16 * 2 ** 20, (json) => 2 *
  * person in this request (nothing written since): a list built at it or later is served as kept.
  */
 export async function deliveriesJson(ctx: DeliveryContext, query: DeliveryQuery, { knownVersion }: { knownVersion?: string } = {}): Promise<string> {
-  const build = async () => JSON.stringify(await listDeliveries(ctx, query));
-  if (!knownVersion || ctx.transaction) return build();
   const own = ownHousehold(ctx);
   const scope = own === undefined ? 'none' : (own ?? 'all');
   const q = query as Record<string, unknown>;
   const key = [ctx.cooperativeId, scope, ...Object.keys(q).sort().map((k) => `${k}=${String(q[k] ?? '')}`)].join('|');
-  // The list is read after the version was, so it holds every change up to it.
-  return lists.get(key, knownVersion, build);
+  return keptJson(lists, key, { knownVersion, transaction: ctx.transaction }, () => listDeliveries(ctx, query));
 }
 
 export async function listDeliveries(ctx: DeliveryContext, query: DeliveryQuery): Promise<DeliveryDto[]> {

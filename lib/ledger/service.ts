@@ -21,6 +21,14 @@ const requireCoordinator = (ctx: LedgerContext, what: string) => {
   if (ctx.actor.role !== 'coordinator') throw fail('forbidden', 'forbidden', `Only a coordinator can ${what}.`);
 };
 
+/** A run as the acting person may see it: a member, its own part only, and nothing of a run without its sap. */
+function runForActor(ctx: LedgerContext, run: LedgerRun): LedgerRun | null {
+  if (ctx.actor.role !== 'member') return run;
+  const own = ctx.actor.householdId;
+  const allocations = run.allocations.filter((a) => a.householdId === own);
+  return allocations.length ? { ...run, allocations } : null;
+}
+
 /** What a member may see: its own row, runs and statement, the co-op totals, the other names. */
 function forActor(ctx: LedgerContext, ledger: FullLedger): FullLedger {
   if (ctx.actor.role !== 'member') return ledger;
@@ -28,9 +36,7 @@ function forActor(ctx: LedgerContext, ledger: FullLedger): FullLedger {
   return {
     ...ledger,
     households: ledger.households.filter((h) => h.householdId === own),
-    runs: ledger.runs
-      .filter((run) => run.allocations.some((a) => a.householdId === own))
-      .map((run) => ({ ...run, allocations: run.allocations.filter((a) => a.householdId === own) })),
+    runs: ledger.runs.flatMap((run) => runForActor(ctx, run) ?? []),
     weeks: ledger.weeks.map((w) => ({ week: w.week, sugarKg: own && own in w.sugarKg ? { [own]: w.sugarKg[own] } : {} })),
     statements: ledger.statements.filter((s) => s.householdId === own),
   };
@@ -86,7 +92,8 @@ export async function ledgerView(ctx: LedgerContext, seasonId: string, { knownVe
  */
 export async function ledgerRun(ctx: LedgerContext, seasonId: string, runId: string, { knownVersion }: KnownVersion = {}): Promise<LedgerRun> {
   const whole = await wholeLedger(ctx, seasonId, knownVersion);
-  const run = forActor(ctx, { ...whole.full, runs: whole.full.runs.filter((r) => r.runId === runId) }).runs[0];
+  const found = whole.full.runs.find((r) => r.runId === runId);
+  const run = found && runForActor(ctx, found);
   if (!run) throw fail('not_found', 'not_found', 'That run was not found among this season’s finished runs.');
   return run;
 }

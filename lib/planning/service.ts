@@ -6,7 +6,7 @@ import { planBoiling, type WaitingLot } from '@/lib/planning/rules';
 import { collectionStart } from '@/lib/deliveries/rules';
 import { spoilageDeadline } from '@/lib/sugar';
 import type { PlanningDto } from './types';
-import { processCache } from '@/lib/server/versioned-cache';
+import { keptJson, processCache } from '@/lib/server/versioned-cache';
 export type { PlanningDto };
 
 interface PlanningRow {
@@ -53,9 +53,8 @@ const PLAN_FRESH_MS = 5_000;
  * `knownVersion` is the version read with the person in this request.
  */
 export async function planningJson(ctx: Ctx, { knownVersion, now = new Date() }: { knownVersion?: string; now?: Date } = {}): Promise<string> {
-  const build = async () => JSON.stringify(await getPlanning(ctx, { now }));
-  if (!knownVersion || ctx.transaction) return build();
-  return plans.get(`${ctx.cooperativeId}|${Math.floor(now.getTime() / PLAN_FRESH_MS)}`, knownVersion, build);
+  const key = `${ctx.cooperativeId}|${Math.floor(now.getTime() / PLAN_FRESH_MS)}`;
+  return keptJson(plans, key, { knownVersion, transaction: ctx.transaction }, () => getPlanning(ctx, { now }));
 }
 
 /** The planning strip of the Boil calendar for a co-op's first evaporator: one query, plain rows. */

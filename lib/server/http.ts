@@ -74,6 +74,9 @@ export function errorResponse(err: unknown, ctx: MapContext = {}): Response {
 /** A JSON answer. */
 export const json = (data: unknown, status = 200) => NextResponse.json(data, { status });
 
+/** A JSON answer whose text is already made (a kept answer, sent as it is). */
+export const jsonText = (text: string) => new Response(text, { headers: { 'content-type': 'application/json' } });
+
 /**
  * Reads a JSON body (400 `invalid_json` when it is not JSON) and, given a schema, parses it (422).
  * A body past the JSON limit answers 413, also when it arrives in chunks with no Content-Length.

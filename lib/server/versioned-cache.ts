@@ -78,6 +78,23 @@ export class VersionedCache<V> {
 }
 
 /**
+ * A GET answer's JSON text, kept in `cache` under `key` per co-op change version. `knownVersion`
+ * is the version read with the signed-in person in this request (nothing written since); without
+ * it, or inside a caller's transaction, the answer is built afresh and not kept. The answer is
+ * read after the version was, so one built at it holds every change up to it.
+ */
+export async function keptJson(
+  cache: VersionedCache<string>,
+  key: string,
+  { knownVersion, transaction }: { knownVersion?: string; transaction?: unknown },
+  build: () => Promise<unknown>,
+): Promise<string> {
+  const text = async () => JSON.stringify(await build());
+  if (!knownVersion || transaction) return text();
+  return cache.get(key, knownVersion, text);
+}
+
+/**
  * One cache per process under `name`, on globalThis so that server.ts and the route handlers'
  * and pages' bundles share it.
  */

@@ -8,7 +8,7 @@ import { authorize, can } from '@/lib/server/policies';
 import { withTransaction } from '@/lib/server/tx';
 import { getCooperative } from '@/lib/coop/service';
 import { isStaff, type Actor } from '@/lib/server/actor';
-import { processCache } from '@/lib/server/versioned-cache';
+import { keptJson, processCache } from '@/lib/server/versioned-cache';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { slotIcs } from '@/lib/mail/ics';
 import { broadcast } from '@/lib/realtime';
@@ -87,12 +87,9 @@ const slotLists = processCache<string>('slot-lists', 16 * 2 ** 20, (json) => 2 *
  * own household's. `knownVersion` is the version read with the person in this request.
  */
 export async function slotsJson(ctx: Ctx, query: { from: string; to: string }, { knownVersion }: { knownVersion?: string } = {}): Promise<string> {
-  const build = async () => JSON.stringify(await listSlots(ctx, query));
-  if (!knownVersion || ctx.transaction) return build();
   authorize(ctx.actor, 'slot.list');
   const view = isStaff(ctx.actor) ? 'staff' : ctx.actor.kind === 'person' ? `household:${ctx.actor.householdId ?? 'none'}` : 'none';
-  // The list is read after the version was, so it holds every change up to it.
-  return slotLists.get(`${ctx.cooperativeId}|${view}|${query.from}|${query.to}`, knownVersion, build);
+  return keptJson(slotLists, `${ctx.cooperativeId}|${view}|${query.from}|${query.to}`, { knownVersion, transaction: ctx.transaction }, () => listSlots(ctx, query));
 }
 
 /** The next booked slots, for the Today page (one household's, or everyone's). */

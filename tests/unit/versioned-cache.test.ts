@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { deepFreeze, processCache, VersionedCache } from '@/lib/server/versioned-cache';
+import { deepFreeze, keptJson, processCache, VersionedCache } from '@/lib/server/versioned-cache';
 
 const counter = () => {
   let builds = 0;
@@ -113,5 +113,20 @@ describe('VersionedCache.keep and processCache', () => {
     a.keep('k', 1, 'one');
     expect(processCache<string>('versioned-cache-test', 10, (v) => v.length).peek('k', 1)).toBe('one');
     expect(processCache<string>('versioned-cache-test-other', 10, (v) => v.length).peek('k', 1)).toBeUndefined();
+  });
+});
+
+describe('keptJson', () => {
+  it('keeps a GET answer’s text per version, and builds afresh without a version or inside a transaction', async () => {
+    const cache = new VersionedCache<string>(1000, (v) => v.length);
+    let builds = 0;
+    const build = async () => ({ lots: ++builds });
+    expect(await keptJson(cache, 'coop|all', { knownVersion: '3' }, build)).toBe('{"lots":1}');
+    expect(await keptJson(cache, 'coop|all', { knownVersion: '3' }, build)).toBe('{"lots":1}');
+    expect(await keptJson(cache, 'coop|all', { knownVersion: '4' }, build)).toBe('{"lots":2}');
+    // A write's own transaction may hold changes nobody else sees yet: never kept or served kept.
+    expect(await keptJson(cache, 'coop|all', { knownVersion: '4', transaction: {} }, build)).toBe('{"lots":3}');
+    expect(await keptJson(cache, 'coop|all', {}, build)).toBe('{"lots":4}');
+    expect(cache.peek('coop|all', '4')).toBe('{"lots":2}');
   });
 });

@@ -1,3 +1,4 @@
+import { jsonText } from '@/lib/server/http';
 import { route } from '@/lib/server/route';
 import { ledgerView } from '@/lib/ledger/service';
 import { LedgerFormat } from '@/lib/ledger/schema';
@@ -24,5 +25,5 @@ export const GET = route<{ id: string }>(async ({ ctx, params, url }) => {
     });
   }
   // The JSON text is built once per change of the co-op and shared (a season's is large).
-  return new Response(json, { headers: { 'content-type': 'application/json' } });
+  return jsonText(json);
 });

@@ -1,3 +1,4 @@
+import { jsonText } from '@/lib/server/http';
 import { route } from '@/lib/server/route';
 import { settlementView } from '@/lib/ledger/service';
 
@@ -5,5 +6,5 @@ import { settlementView } from '@/lib/ledger/service';
 export const GET = route<{ id: string }>(async ({ ctx, params }) => {
   // Nothing was written in this request: the version read with the person may pick a kept answer.
   const { json } = await settlementView(ctx, params.id, { knownVersion: ctx.changeVersion });
-  return new Response(json, { headers: { 'content-type': 'application/json' } });
+  return jsonText(json);
 });
