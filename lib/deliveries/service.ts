@@ -2,10 +2,10 @@ import 'server-only';
 import { DateTime } from 'luxon';
 import { QueryTypes, UniqueConstraintError, type Transaction } from 'sequelize';
 import { db } from '@/db/models';
-import { recordChange } from '@/lib/events';
+import { announceChange, changeMarkOf, recordChange } from '@/lib/events';
 import { isStaff } from '@/lib/server/actor';
 import { actorUserId, type Ctx, type TxCtx } from '@/lib/server/context';
-import { registerConstraints } from '@/lib/server/db-errors';
+import { isConnectionError, registerConstraints } from '@/lib/server/db-errors';
 import { invalid, notFound } from '@/lib/server/errors';
 import { authorize, can } from '@/lib/server/policies';
 import { withTransaction } from '@/lib/server/tx';
@@ -60,7 +60,7 @@ interface NewLotRow extends CoopRow {
 }
 
 /** Everything a new lot is checked against, in one statement (a busy desk logs many). */
-async function newLotContext(cooperativeId: string, householdId: string, key: string, transaction: Transaction): Promise<NewLotRow> {
+async function newLotContext(cooperativeId: string, householdId: string, key: string, transaction?: Transaction): Promise<NewLotRow> {
   const [row] = await db().sequelize.query<NewLotRow>(
     `SELECT c.id, c.name, c.time_zone AS "timeZone", c.unit_system AS "unitSystem", c.shelf_days AS "shelfDays",
             c.warm_above_c AS "warmAboveC", c.warm_shelf_days AS "warmShelfDays", s.id AS "seasonId",
@@ -243,12 +243,29 @@ async function findByKey(cooperativeId: string, key: string): Promise<string | n
 }
 
 /**
- * `POST /api/deliveries`: logs a lot in one transaction (row, change event, rejection e-mail).
- * A repeated idempotency key, also from a concurrent post, answers the first lot with
- * `created: false`.
+ * `POST /api/deliveries`: logs a lot. An accepted lot (nearly every lot at a busy desk) is one
+ * statement of its own: the lot and its change mark commit together, and that statement inserts
+ * nothing if the season closed or the key was taken meanwhile. Anything else (a rejected lot
+ * with its e-mail, a key seen before, a season closed in between, a lost connection) goes
+ * through one transaction that reads everything again. A repeated idempotency key, also from a
+ * concurrent post, answers the first lot with `created: false`.
  */
 export async function createDelivery(ctx: DeliveryContext, input: DeliveryInput, now = new Date()): Promise<{ lot: DeliveryDto; created: boolean }> {
   authorize(ctx.actor, 'delivery.create', undefined, 'Only a sugarmaker or a coordinator can log a drop-off.');
+  if (!ctx.transaction) {
+    try {
+      const coop = await newLotContext(ctx.cooperativeId, input.householdId, input.idempotencyKey);
+      if (coop.existingId) return { lot: await lotForAnswer(ctx, coop.existingId), created: false };
+      const plan = await planLot(ctx.cooperativeId, coop, input, now);
+      if (plan.status === 'accepted') {
+        const lot = await insertAcceptedLot(ctx, coop, plan, input, now);
+        if (lot) return { lot, created: true };
+      }
+    } catch (err) {
+      // A connection lost on the way: the transaction below retries, and finds the lot if it landed.
+      if (!isConnectionError(err)) throw err;
+    }
+  }
   try {
     // Safe to retry on a lost connection: a second try of a committed insert meets the key.
     const out = await withTransaction(ctx, (tx) => insertLot(tx, input, now), { idempotent: true });
@@ -268,12 +285,16 @@ async function lotForAnswer(ctx: DeliveryContext, id: string): Promise<DeliveryD
   return { ...lot, revisions: revisions.length };
 }
 
-/** The new lot, or the lot an earlier request with the same idempotency key logged. */
-async function insertLot(ctx: TxCtx, input: DeliveryInput, now: Date): Promise<DeliveryDto | { existingId: string }> {
-  const { transaction, cooperativeId } = ctx;
-  const coop = await newLotContext(cooperativeId, input.householdId, input.idempotencyKey, transaction);
-  // A repeated request answers the first lot, even after the season closed or the form changed.
-  if (coop.existingId) return { existingId: coop.existingId };
+/** A new lot's row as checked against its co-op (422 naming the field otherwise). */
+interface LotPlan {
+  seasonId: string;
+  householdName: string;
+  recommendation: 'accept' | 'reject';
+  status: 'accepted' | 'rejected';
+  reason: string | null;
+}
+
+async function planLot(cooperativeId: string, coop: NewLotRow, input: DeliveryInput, now: Date): Promise<LotPlan> {
   if (!coop.seasonId) throw invalid('There is no open season to log sap into. A coordinator opens one in Settings.', undefined, 'no_open_season');
   const name = coop.householdName;
   if (!name) fail('householdId', 'Choose a household of this cooperative.', 'unknown_household');
@@ -289,43 +310,45 @@ async function insertLot(ctx: TxCtx, input: DeliveryInput, now: Date): Promise<D
     const message = input.decision === 'reject' || (!input.decision && rec.decision === 'reject') ? 'Say why the lot is rejected.' : 'Say why you go against the recommendation.';
     fail('reason', message, 'reason_required');
   }
+  return { seasonId: coop.seasonId, householdName: name, recommendation: rec.decision, status: decided.status, reason: decided.reason ?? null };
+}
 
-  const { SapDelivery } = db();
-  const row = await SapDelivery.create(
-    {
-      cooperativeId,
-      seasonId: coop.seasonId,
-      householdId: input.householdId,
-      receivedAt: now,
-      collectedOn: input.collectedOn,
-      volumeL: roundL(input.volumeL),
-      brix: roundBrix(input.brix),
-      sapTempC: input.sapTempC,
-      clarity: input.clarity,
-      contamination: input.contamination,
-      sugarMaplePct: input.mix?.sugarMaple ?? null,
-      redMaplePct: input.mix?.redMaple ?? null,
-      otherPct: input.mix?.other ?? null,
-      recommendation: rec.decision,
-      status: decided.status,
-      reason: decided.reason,
-      photoKey: input.photoKey ?? null,
-      note: input.note?.trim() || null,
-      loggedBy: actorUserId(ctx),
-      idempotencyKey: input.idempotencyKey,
-    },
-    { transaction },
-  );
-  await recordChange(ctx, { type: decided.status === 'accepted' ? 'delivery.accepted' : 'delivery.rejected', deliveryId: row.id, householdId: row.householdId });
-  if (decided.status === 'rejected') {
-    await queueRejectionMail({ ...lotForMail(row), reason: decided.reason! }, coop satisfies MailCoop, transaction);
-  }
+/** The row's columns as written, in both ways of writing it. */
+function lotRow(ctx: DeliveryContext, plan: LotPlan, input: DeliveryInput, now: Date) {
+  return {
+    cooperativeId: ctx.cooperativeId,
+    seasonId: plan.seasonId,
+    householdId: input.householdId,
+    receivedAt: now,
+    collectedOn: input.collectedOn,
+    volumeL: roundL(input.volumeL),
+    brix: roundBrix(input.brix),
+    sapTempC: input.sapTempC,
+    clarity: input.clarity,
+    contamination: input.contamination,
+    sugarMaplePct: input.mix?.sugarMaple ?? null,
+    redMaplePct: input.mix?.redMaple ?? null,
+    otherPct: input.mix?.other ?? null,
+    recommendation: plan.recommendation,
+    status: plan.status,
+    reason: plan.reason,
+    photoKey: input.photoKey ?? null,
+    note: input.note?.trim() || null,
+    loggedBy: actorUserId(ctx),
+    idempotencyKey: input.idempotencyKey,
+  };
+}
+
+type NewLot = ReturnType<typeof lotRow> & { id: string };
+
+/** The answer to a new lot: nothing boiled from it yet, no corrections. */
+function newLotDto(ctx: DeliveryContext, row: NewLot, householdName: string, timeZone: string, mix: DeliveryInput['mix']): DeliveryDto {
   return {
     id: row.id,
     seasonId: row.seasonId,
     householdId: row.householdId,
-    householdName: name,
-    receivedAt: toZonedIso(row.receivedAt, coop.timeZone),
+    householdName,
+    receivedAt: toZonedIso(row.receivedAt, timeZone),
     collectedOn: row.collectedOn,
     volumeL: row.volumeL,
     brix: row.brix,
@@ -333,7 +356,7 @@ async function insertLot(ctx: TxCtx, input: DeliveryInput, now: Date): Promise<D
     sapTempC: row.sapTempC,
     clarity: row.clarity,
     contamination: row.contamination,
-    mix: input.mix ?? null,
+    mix: mix ?? null,
     recommendation: row.recommendation,
     status: row.status,
     reason: row.reason,
@@ -344,6 +367,48 @@ async function insertLot(ctx: TxCtx, input: DeliveryInput, now: Date): Promise<D
     litresBoiled: 0,
     revisions: 0,
   };
+}
+
+/**
+ * An accepted lot and its change mark in one statement (so one round trip and one commit). It
+ * writes nothing, and answers null, when the season is no longer open or the key was taken since
+ * the lot was checked; the caller then goes the long way, which says why.
+ */
+async function insertAcceptedLot(ctx: DeliveryContext, coop: NewLotRow, plan: LotPlan, input: DeliveryInput, now: Date): Promise<DeliveryDto | null> {
+  const row = lotRow(ctx, plan, input, now);
+  const [lot] = await db().sequelize.query<{ id: string }>(
+    `WITH lot AS (
+       INSERT INTO sap_deliveries (cooperative_id, season_id, household_id, received_at, collected_on, volume_l, brix, sap_temp_c,
+                                   clarity, contamination, sugar_maple_pct, red_maple_pct, other_pct, recommendation, status, reason,
+                                   photo_key, note, logged_by, idempotency_key)
+       SELECT :cooperativeId, s.id, :householdId, :receivedAt, :collectedOn, :volumeL, :brix, :sapTempC,
+              :clarity, :contamination, :sugarMaplePct, :redMaplePct, :otherPct, :recommendation, :status, :reason,
+              :photoKey, :note, :loggedBy, :idempotencyKey
+         FROM seasons s WHERE s.id = :seasonId AND s.cooperative_id = :cooperativeId AND s.status = 'open'
+       ON CONFLICT ON CONSTRAINT sap_deliveries_idempotency DO NOTHING
+       RETURNING id, cooperative_id),
+     marked AS (${changeMarkOf('lot')})
+     SELECT id FROM lot`,
+    { replacements: row, type: QueryTypes.SELECT },
+  );
+  if (!lot) return null;
+  announceChange({ cooperativeId: ctx.cooperativeId, event: { type: 'delivery.accepted', deliveryId: lot.id, householdId: row.householdId } });
+  return newLotDto(ctx, { ...row, id: lot.id }, plan.householdName, coop.timeZone, input.mix);
+}
+
+/** The new lot in the caller's transaction, or the lot an earlier request with the same idempotency key logged. */
+async function insertLot(ctx: TxCtx, input: DeliveryInput, now: Date): Promise<DeliveryDto | { existingId: string }> {
+  const { transaction, cooperativeId } = ctx;
+  const coop = await newLotContext(cooperativeId, input.householdId, input.idempotencyKey, transaction);
+  // A repeated request answers the first lot, even after the season closed or the form changed.
+  if (coop.existingId) return { existingId: coop.existingId };
+  const plan = await planLot(cooperativeId, coop, input, now);
+  const row = await db().SapDelivery.create(lotRow(ctx, plan, input, now), { transaction });
+  await recordChange(ctx, { type: row.status === 'accepted' ? 'delivery.accepted' : 'delivery.rejected', deliveryId: row.id, householdId: row.householdId });
+  if (row.status === 'rejected') {
+    await queueRejectionMail({ ...lotForMail(row), reason: row.reason! }, coop satisfies MailCoop, transaction);
+  }
+  return newLotDto(ctx, row, plan.householdName, coop.timeZone, input.mix);
 }
 
 function lotForMail(row: { id: string; householdId: string; receivedAt: Date; collectedOn: string; volumeL: number; brix: number; sapTempC: number }) {

@@ -67,16 +67,31 @@ export async function recordChange<E extends { type: string } = ChangeEvent>(ctx
     { replacements: { cooperativeId }, transaction },
   );
   const notice = { cooperativeId, event } as unknown as ChangeNotice;
-  transaction.afterCommit(() => {
-    for (const listener of listeners()) {
-      try {
-        const r = listener(notice);
-        if (r && typeof (r as Promise<void>).catch === 'function') (r as Promise<void>).catch((err) => console.error('change listener failed', err));
-      } catch (err) {
-        console.error('change listener failed', err);
-      }
+  transaction.afterCommit(() => announceChange(notice));
+}
+
+/**
+ * For a write made of one statement outside a transaction (its own transaction): a step of its
+ * `WITH` that marks changed the co-op of every row the step `rows` wrote, so the version grows as
+ * that statement commits, and not at all when it wrote nothing. Call `announceChange` once the
+ * statement returned rows.
+ *
+ *   WITH lot AS (INSERT … RETURNING *), marked AS (${changeMarkOf('lot')}) SELECT * FROM lot
+ */
+export function changeMarkOf(rows: string): string {
+  return `INSERT INTO change_marks (txid, cooperative_id) SELECT DISTINCT txid_current(), cooperative_id FROM ${rows} ON CONFLICT DO NOTHING`;
+}
+
+/** Tells every listener of a committed change. A listener's failure is logged, never thrown. */
+export function announceChange(notice: ChangeNotice): void {
+  for (const listener of listeners()) {
+    try {
+      const r = listener(notice);
+      if (r && typeof (r as Promise<void>).catch === 'function') (r as Promise<void>).catch((err) => console.error('change listener failed', err));
+    } catch (err) {
+      console.error('change listener failed', err);
     }
-  });
+  }
 }
 
 /** The co-op's current change version (0 before its first change). */

@@ -12,23 +12,32 @@ import { computeSnapshot, currentSnapshot, rememberSnapshot } from './service';
  */
 const MIN_GAP_MS = 40;
 
+/** What a process tells the others when a change to a co-op's queue committed on it. */
+const PEER_EVENT = 'queue:changed';
+
 interface Pending {
   timer: ReturnType<typeof setTimeout> | null;
   running: boolean;
   again: boolean;
+  /** The change was written on this process: the other processes are still to hear of it. */
+  tellPeers: boolean;
 }
 
 /**
- * Broadcasts the Boil queue after every committed change. Only the process where the change was
- * written hears it (listeners run after its commit), so each change is computed once, not once
- * per process or per socket; socket.io's PostgreSQL adapter carries the one `queue` event to the
- * screens on every other process. The snapshot is read after the change, so it carries the newest
- * version, and a burst of changes makes one snapshot.
+ * Sends the Boil queue to the screens after every committed change. The process where the change
+ * was written hears it (listeners run after its commit) and tells the other processes in one small
+ * message through socket.io's PostgreSQL adapter; then every process that has screens of that
+ * co-op reads one snapshot and sends it to its own screens, and a process without any reads
+ * nothing. (The snapshot itself never crosses the adapter: at 19 KB it would go through the
+ * adapter's attachment table, where every process, the sender too, reads and decodes it again.)
+ * The snapshot is read after the change, so it carries the newest version, a burst of changes
+ * makes one snapshot, and a version already sent is not sent again.
  */
 export function startQueueBroadcaster(io: Server): () => void {
   const pending = new Map<string, Pending>();
   const sent = new Map<string, number>();
   const lastStart = new Map<string, number>();
+  const watched = (cooperativeId: string) => (io.of('/').adapter.rooms.get(coopRoom(cooperativeId))?.size ?? 0) > 0;
 
   async function flush(cooperativeId: string) {
     const p = pending.get(cooperativeId)!;
@@ -40,12 +49,18 @@ export function startQueueBroadcaster(io: Server): () => void {
     p.running = true;
     lastStart.set(cooperativeId, Date.now());
     try {
-      const snapshot = await computeSnapshot(cooperativeId);
-      // A change already carried by an earlier snapshot is not sent again.
-      if (snapshot && snapshot.version > (sent.get(cooperativeId) ?? -1)) {
-        sent.set(cooperativeId, snapshot.version);
-        rememberSnapshot(cooperativeId, snapshot);
-        io.to(coopRoom(cooperativeId)).emit('queue', snapshot);
+      if (p.tellPeers) {
+        p.tellPeers = false;
+        io.serverSideEmit(PEER_EVENT, cooperativeId);
+      }
+      if (watched(cooperativeId)) {
+        const snapshot = await computeSnapshot(cooperativeId);
+        // A change already carried by an earlier snapshot is not sent again.
+        if (snapshot && snapshot.version > (sent.get(cooperativeId) ?? -1)) {
+          sent.set(cooperativeId, snapshot.version);
+          rememberSnapshot(cooperativeId, snapshot);
+          io.local.to(coopRoom(cooperativeId)).emit('queue', snapshot);
+        }
       }
     } catch (err) {
       console.error('queue broadcast failed', err);
@@ -53,14 +68,15 @@ export function startQueueBroadcaster(io: Server): () => void {
       p.running = false;
       if (p.again) {
         p.again = false;
-        schedule(cooperativeId);
+        schedule(cooperativeId, false);
       } else if (!p.timer) pending.delete(cooperativeId);
     }
   }
 
-  function schedule(cooperativeId: string) {
+  function schedule(cooperativeId: string, local: boolean) {
     let p = pending.get(cooperativeId);
-    if (!p) pending.set(cooperativeId, (p = { timer: null, running: false, again: false }));
+    if (!p) pending.set(cooperativeId, (p = { timer: null, running: false, again: false, tellPeers: false }));
+    if (local) p.tellPeers = true;
     if (p.running) {
       p.again = true;
       return;
@@ -69,7 +85,15 @@ export function startQueueBroadcaster(io: Server): () => void {
     p.timer ??= setTimeout(() => void flush(cooperativeId), wait);
   }
 
-  return onChange(({ cooperativeId }) => schedule(cooperativeId));
+  const fromPeer = (cooperativeId: unknown) => {
+    if (typeof cooperativeId === 'string') schedule(cooperativeId, false);
+  };
+  io.on(PEER_EVENT, fromPeer);
+  const off = onChange(({ cooperativeId }) => schedule(cooperativeId, true));
+  return () => {
+    off();
+    io.off(PEER_EVENT, fromPeer);
+  };
 }
 
 /** A screen that just joined gets the current queue at once. */

@@ -86,6 +86,20 @@ describe('logging a drop-off', () => {
     expect(Math.abs(Date.parse(read.body.receivedAt) - Date.now())).toBeLessThan(60_000);
   });
 
+  it('answers a new lot, accepted or rejected, exactly as reading it back does', async () => {
+    // Accepted lots are written in one statement, rejected ones (with their e-mail) in a transaction.
+    const accepted = await sugarmaker.post('/api/deliveries', lot({ volumeL: 180.25, brix: 2.3, note: '  east ridge  ', mix: { sugarMaple: 70, redMaple: 25, other: 5 } }));
+    const rejected = await sugarmaker.post('/api/deliveries', lot({ clarity: 'cloudy', decision: 'reject', reason: 'Sour smell' }));
+    expect([accepted.status, rejected.status]).toEqual([201, 201]);
+    expect([accepted.body.status, rejected.body.status]).toEqual(['accepted', 'rejected']);
+    for (const made of [accepted, rejected]) {
+      const read = await sugarmaker.get(`/api/deliveries/${made.body.id}`);
+      const { deadline: _deadline, revisions, ...lotRead } = read.body;
+      expect(made.body).toEqual({ ...lotRead, revisions: revisions.length });
+    }
+    expect(accepted.body).toMatchObject({ note: 'east ridge', mix: { sugarMaple: 70, redMaple: 25, other: 5 }, litresBoiled: 0, revisions: 0 });
+  });
+
   it('stores a US co-op’s 10 gal, typed on the form, as 37.854 L', async () => {
     const form: DeliveryFormValues = {
       householdId: households.Brennan,

@@ -3,7 +3,7 @@ import { randomUUID } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import { getSequelize } from '@/db';
 import { db } from '@/db/models';
-import { currentVersion, onChange, recordChange, type ChangeNotice } from '@/lib/events';
+import { changeMarkOf, currentVersion, onChange, recordChange, type ChangeNotice } from '@/lib/events';
 
 afterAll(async () => {
   await getSequelize().close();
@@ -54,6 +54,26 @@ describe('lib/events', () => {
     } finally {
       off();
     }
+  });
+
+  it('a write of one statement bumps the version once as it commits, and not when it wrote nothing', async () => {
+    const { sequelize } = db();
+    const cooperativeId = await coopId();
+    const before = await currentVersion(sequelize, cooperativeId);
+    // Every household of the co-op is touched: several rows, one co-op, one step.
+    const touch = (where: string) =>
+      sequelize.query<{ id: string }>(
+        `WITH touched AS (UPDATE households SET name = name WHERE cooperative_id = :cooperativeId AND ${where} RETURNING id, cooperative_id),
+              marked AS (${changeMarkOf('touched')})
+         SELECT id FROM touched`,
+        { replacements: { cooperativeId }, type: QueryTypes.SELECT },
+      );
+    expect((await touch('true')).length).toBeGreaterThan(1);
+    expect(await currentVersion(sequelize, cooperativeId)).toBe(before + 1);
+    expect(await touch('false')).toHaveLength(0);
+    expect(await currentVersion(sequelize, cooperativeId)).toBe(before + 1);
+    const [{ n }] = await sequelize.query<{ n: string }>('SELECT count(*) AS n FROM change_marks', { type: QueryTypes.SELECT });
+    expect(Number(n)).toBe(0);
   });
 
   it('a rolled-back write tells nobody and leaves the version', async () => {
