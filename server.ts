@@ -9,7 +9,7 @@ import { coopRoom, personRoom, setRealtimeServer } from '@/lib/realtime';
 import { personFromClaims } from '@/lib/server/person';
 import { startMailWorker, stopMailQueue } from '@/lib/mail/outbox';
 import { startStatementWorker } from '@/lib/ledger/statement-mail';
-import { getSequelize } from '@/db';
+import { getLiveSequelize, getSequelize } from '@/db';
 import { displayRoom, findDisplayLink } from '@/lib/display/tokens';
 import { sendCurrentQueue, startQueueBroadcaster } from '@/lib/queue/live';
 import { createAdapterPool } from '@/lib/server/adapter-pool';
@@ -90,7 +90,7 @@ async function main() {
   await startMailWorker();
   await startStatementWorker();
   // Open the pool's standing connections now rather than on the first request.
-  await Promise.all([getSequelize().query('SELECT 1'), getSequelize().query('SELECT 1')]).catch((err) =>
+  await Promise.all([getSequelize().query('SELECT 1'), getSequelize().query('SELECT 1'), getLiveSequelize().query('SELECT 1')]).catch((err) =>
     console.error('database not reachable yet:', err.message),
   );
 
@@ -104,6 +104,7 @@ async function main() {
     await adapterPool.end().catch(() => undefined);
     await stopMailQueue().catch(() => undefined);
     await getSequelize().close().catch(() => undefined);
+    await getLiveSequelize().close().catch(() => undefined);
     process.exit(0);
   };
   process.on('SIGTERM', shutdown);

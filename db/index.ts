@@ -36,7 +36,7 @@ function waitForConnections(sequelize: Sequelize) {
   return sequelize;
 }
 
-function create(url: string): Sequelize {
+function create(url: string, pool = { max: 20, min: 8 }): Sequelize {
   return waitForConnections(new Sequelize(url, {
     dialect: 'postgres',
     dialectModule: pg,
@@ -44,7 +44,7 @@ function create(url: string): Sequelize {
     // A warm pool: `min` connections stay open through idle spells, so the first request after
     // a quiet minute does not wait for a new connection, and a burst after a pause does not open
     // a dozen at once (each costs a SCRAM handshake); TCP keep-alive keeps them alive.
-    pool: { max: 20, min: 8, idle: 120_000, acquire: 30_000 },
+    pool: { ...pool, idle: 120_000, acquire: 30_000 },
     // Every session starts read committed, so a transaction at that level needs no
     // SET TRANSACTION of its own (one round trip fewer per write; lib/server/tx.ts).
     dialectOptions: { keepAlive: true, options: '-c default_transaction_isolation=read\\ committed' },
@@ -65,4 +65,14 @@ export function getSequelize(url: string = env().DATABASE_URL): Sequelize {
     globalForDb.__brixhouseSequelize.set(url, s);
   }
   return s;
+}
+
+const globalForLive = globalThis as unknown as { __brixhouseLiveSequelize?: Sequelize };
+
+/**
+ * Two connections of their own for the live queue's snapshots (server.ts), so a snapshot after a
+ * change does not queue for a connection behind every request a busy process is serving.
+ */
+export function getLiveSequelize(): Sequelize {
+  return (globalForLive.__brixhouseLiveSequelize ??= create(env().DATABASE_URL, { max: 2, min: 1 }));
 }

@@ -1,5 +1,6 @@
 // Runs in server.ts (plain Node): no 'server-only' marker.
 import type { Server, Socket } from 'socket.io';
+import { getLiveSequelize } from '@/db';
 import { onChange } from '@/lib/events';
 import { coopRoom } from '@/lib/realtime';
 import { computeSnapshot, currentSnapshot, rememberSnapshot } from './service';
@@ -54,7 +55,7 @@ export function startQueueBroadcaster(io: Server): () => void {
         io.serverSideEmit(PEER_EVENT, cooperativeId);
       }
       if (watched(cooperativeId)) {
-        const snapshot = await computeSnapshot(cooperativeId);
+        const snapshot = await computeSnapshot(cooperativeId, new Date(), getLiveSequelize());
         // A change already carried by an earlier snapshot is not sent again.
         if (snapshot && snapshot.version > (sent.get(cooperativeId) ?? -1)) {
           sent.set(cooperativeId, snapshot.version);

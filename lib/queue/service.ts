@@ -1,5 +1,6 @@
 // Server code without the 'server-only' marker: server.ts (plain Node) computes snapshots too.
 import { QueryTypes, type Transaction } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import { getSequelize } from '@/db';
 import { currentVersion } from '@/lib/events';
 import type { GradeClass } from '@/lib/sugar';
@@ -54,8 +55,8 @@ SELECT
 `;
 
 /** Reads what the queue is computed from, in one SQL statement. */
-export async function loadQueueInput(cooperativeId: string, now: Date, transaction?: Transaction): Promise<QueueInput | null> {
-  const [row] = await getSequelize().query<Row>(SQL, {
+export async function loadQueueInput(cooperativeId: string, now: Date, transaction?: Transaction, sequelize: Sequelize = getSequelize()): Promise<QueueInput | null> {
+  const [row] = await sequelize.query<Row>(SQL, {
     replacements: { coop: cooperativeId, now: now.toISOString() },
     type: QueryTypes.SELECT,
     transaction,
@@ -102,8 +103,8 @@ export async function loadQueueInput(cooperativeId: string, now: Date, transacti
 }
 
 /** Computes a fresh snapshot from the database. */
-export async function computeSnapshot(cooperativeId: string, now = new Date()): Promise<QueueSnapshot | null> {
-  const input = await loadQueueInput(cooperativeId, now);
+export async function computeSnapshot(cooperativeId: string, now = new Date(), sequelize?: Sequelize): Promise<QueueSnapshot | null> {
+  const input = await loadQueueInput(cooperativeId, now, undefined, sequelize);
   return input ? computeQueue(input) : null;
 }
 

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { io as connect, type Socket } from 'socket.io-client';
 import { BASE_URL, TEST_PORT } from '../test-env';
 import { signedIn, type Client } from './http';
-import { closeTestDb } from './db';
+import { closeTestDb, markChanged, testDb } from './db';
 import { demoCoop, testEvaporator } from './lots';
 import type { QueueSnapshot } from '@/lib/queue/types';
 
@@ -32,9 +32,17 @@ beforeAll(async () => {
   throw new Error('the second server did not start');
 }, 150_000);
 
+/** The run this test starts (it takes no sap, so it cannot be finished): removed after, for the files that follow. */
+let leftRun: { runId: string; cooperativeId: string } | null = null;
+
 afterAll(async () => {
   for (const s of sockets) s.close();
   second?.kill('SIGTERM');
+  if (leftRun) {
+    await testDb().query('DELETE FROM syrup_draws WHERE run_id = :r', { replacements: { r: leftRun.runId } });
+    await testDb().query('DELETE FROM boil_runs WHERE id = :r', { replacements: { r: leftRun.runId } });
+    await markChanged(leftRun.cooperativeId);
+  }
   await closeTestDb();
 });
 
@@ -56,6 +64,7 @@ describe('the live queue across two server processes', { timeout: 120_000 }, () 
     const started = await post(SECOND_URL, '/api/runs', { evaporatorId, slotId: null });
     expect(started.status).toBe(201);
     const run = (await started.json()) as { id: string; lotCode: string };
+    leftRun = { runId: run.id, cooperativeId: co.cooperativeId };
     await expect.poll(() => received.some((s) => s.version > joined), { timeout: 2_000 }).toBe(true);
 
     // A burst of draw-offs through the second process: each version reaches the first process's screen in order.
