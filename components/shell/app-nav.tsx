@@ -58,7 +58,7 @@ export function AppNav({ nav }: AppNavProps) {
           const active = isCurrent(pathname, item.href);
           return (
             <li key={item.href} className="min-w-0">
-              <Link href={item.href} aria-current={active ? 'page' : undefined} className={cn(tabClass(active), 'h-full w-full md:px-3')}>
+              <Link href={item.href} aria-current={active ? 'page' : undefined} className={cn(tabClass(active), 'h-full w-full px-1 md:px-3')}>
                 <span className="md:hidden">{item.short ?? item.label}</span>
                 <span className="hidden md:inline">{item.label}</span>
               </Link>

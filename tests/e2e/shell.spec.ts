@@ -54,6 +54,8 @@ test.describe('the phone shell at 360 px', () => {
         const box = (await link.boundingBox())!;
         expect(box.height).toBeGreaterThanOrEqual(44);
         expect(box.width).toBeGreaterThanOrEqual(44);
+        // The short label reads on one line (a wrapped inline label has one box per line).
+        expect(await link.locator('span:visible').evaluate((el) => el.getClientRects().length)).toBe(1);
         await link.click();
         await expect(page).toHaveURL(new RegExp(`${href}$`), { timeout: 30_000 });
         await expect(main.getByRole('link', { name, exact: true })).toHaveAttribute('aria-current', 'page');

@@ -90,6 +90,20 @@ describe('the Boil queue API', { timeout: 120_000 }, () => {
     expect(snap.totals.hoursBookedAhead).toBeCloseTo(expected.totals.hoursBookedAhead, 9);
   });
 
+  it('is gzipped once for a client that takes gzip, and plain for one that does not', async () => {
+    const ask = (encoding: string) => fetch(`${BASE_URL}/api/queue`, { headers: { cookie: member.cookieHeader, 'accept-encoding': encoding } });
+    const zipped = await ask('gzip, deflate, br');
+    expect(zipped.headers.get('content-encoding')).toBe('gzip');
+    // fetch unzips once: zipped twice, this would not be JSON.
+    const a = (await zipped.json()) as QueueSnapshot;
+    const plain = await ask('identity');
+    expect(plain.headers.get('content-encoding')).toBeNull();
+    const b = (await plain.json()) as QueueSnapshot;
+    expect(a.lots.length).toBeGreaterThan(3);
+    expect(b.version).toBe(a.version);
+    expect(b.lots).toEqual(a.lots);
+  });
+
   it('is signed-in only', async () => {
     expect((await new Client().get('/api/queue')).status).toBe(401);
   });
