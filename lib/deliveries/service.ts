@@ -252,11 +252,14 @@ async function findByKey(cooperativeId: string, key: string): Promise<string | n
  */
 export async function createDelivery(ctx: DeliveryContext, input: DeliveryInput, now = new Date()): Promise<{ lot: DeliveryDto; created: boolean }> {
   authorize(ctx.actor, 'delivery.create', undefined, 'Only a sugarmaker or a coordinator can log a drop-off.');
+  // The photo is looked up in storage once, also when the lot then goes the long way.
+  let photoChecked = false;
   if (!ctx.transaction) {
     try {
       const coop = await newLotContext(ctx.cooperativeId, input.householdId, input.idempotencyKey);
       if (coop.existingId) return { lot: await lotForAnswer(ctx, coop.existingId), created: false };
       const plan = await planLot(ctx.cooperativeId, coop, input, now);
+      photoChecked = true;
       if (plan.status === 'accepted') {
         const lot = await insertAcceptedLot(ctx, coop, plan, input, now);
         if (lot) return { lot, created: true };
@@ -268,7 +271,7 @@ export async function createDelivery(ctx: DeliveryContext, input: DeliveryInput,
   }
   try {
     // Safe to retry on a lost connection: a second try of a committed insert meets the key.
-    const out = await withTransaction(ctx, (tx) => insertLot(tx, input, now), { idempotent: true });
+    const out = await withTransaction(ctx, (tx) => insertLot(tx, input, now, photoChecked), { idempotent: true });
     if ('existingId' in out) return { lot: await lotForAnswer(ctx, out.existingId), created: false };
     return { lot: out, created: true };
   } catch (err) {
@@ -294,12 +297,12 @@ interface LotPlan {
   reason: string | null;
 }
 
-async function planLot(cooperativeId: string, coop: NewLotRow, input: DeliveryInput, now: Date): Promise<LotPlan> {
+async function planLot(cooperativeId: string, coop: NewLotRow, input: DeliveryInput, now: Date, photoChecked = false): Promise<LotPlan> {
   if (!coop.seasonId) throw invalid('There is no open season to log sap into. A coordinator opens one in Settings.', undefined, 'no_open_season');
   const name = coop.householdName;
   if (!name) fail('householdId', 'Choose a household of this cooperative.', 'unknown_household');
   checkCollectedOn(input.collectedOn, localDay(now, coop.timeZone));
-  await checkPhotoKey(cooperativeId, input.photoKey);
+  if (!photoChecked) await checkPhotoKey(cooperativeId, input.photoKey);
 
   const rec = recommend(
     { clarity: input.clarity, contamination: input.contamination, sapTempC: input.sapTempC, collectedAt: collectionStart(input.collectedOn, coop.timeZone), receivedAt: now },
@@ -397,12 +400,12 @@ async function insertAcceptedLot(ctx: DeliveryContext, coop: NewLotRow, plan: Lo
 }
 
 /** The new lot in the caller's transaction, or the lot an earlier request with the same idempotency key logged. */
-async function insertLot(ctx: TxCtx, input: DeliveryInput, now: Date): Promise<DeliveryDto | { existingId: string }> {
+async function insertLot(ctx: TxCtx, input: DeliveryInput, now: Date, photoChecked: boolean): Promise<DeliveryDto | { existingId: string }> {
   const { transaction, cooperativeId } = ctx;
   const coop = await newLotContext(cooperativeId, input.householdId, input.idempotencyKey, transaction);
   // A repeated request answers the first lot, even after the season closed or the form changed.
   if (coop.existingId) return { existingId: coop.existingId };
-  const plan = await planLot(cooperativeId, coop, input, now);
+  const plan = await planLot(cooperativeId, coop, input, now, photoChecked);
   const row = await db().SapDelivery.create(lotRow(ctx, plan, input, now), { transaction });
   await recordChange(ctx, { type: row.status === 'accepted' ? 'delivery.accepted' : 'delivery.rejected', deliveryId: row.id, householdId: row.householdId });
   if (row.status === 'rejected') {

@@ -90,7 +90,10 @@ describe('logging a drop-off', () => {
     // Accepted lots are written in one statement, rejected ones (with their e-mail) in a transaction.
     await clearMail();
     const accepted = await sugarmaker.post('/api/deliveries', lot({ volumeL: 180.25, brix: 2.3, note: '  east ridge  ', mix: { sugarMaple: 70, redMaple: 25, other: 5 } }));
-    const rejected = await sugarmaker.post('/api/deliveries', lot({ clarity: 'cloudy', decision: 'reject', reason: 'Sour smell' }));
+    // The rejected lot carries a photo: looked up once, it is still on the lot written the long way.
+    const photo = await upload(sugarmaker, PNG, 'sour.png', 'image/png');
+    expect(photo.status).toBe(201);
+    const rejected = await sugarmaker.post('/api/deliveries', lot({ clarity: 'cloudy', decision: 'reject', reason: 'Sour smell', photoKey: photo.body.photoKey }));
     expect([accepted.status, rejected.status]).toEqual([201, 201]);
     expect([accepted.body.status, rejected.body.status]).toEqual(['accepted', 'rejected']);
     for (const made of [accepted, rejected]) {
@@ -99,6 +102,13 @@ describe('logging a drop-off', () => {
       expect(made.body).toEqual({ ...lotRead, revisions: revisions.length });
     }
     expect(accepted.body).toMatchObject({ note: 'east ridge', mix: { sugarMaple: 70, redMaple: 25, other: 5 }, litresBoiled: 0, revisions: 0 });
+    expect(rejected.body.photoKey).toBe(photo.body.photoKey);
+    // A photo key that names no stored photo is refused on a rejected lot too, and nothing is written.
+    const missing = lot({ clarity: 'cloudy', decision: 'reject', reason: 'Sour smell', photoKey: photo.body.photoKey.replace(/[^/]+$/, 'zzzzzzzzzzzzzzzzzzzzzzzzzzzzzzzz.png') });
+    const refused = await sugarmaker.post('/api/deliveries', missing);
+    expect(refused.status).toBe(422);
+    expect(refused.body.error).toMatchObject({ code: 'photo_not_found', fields: { photoKey: expect.any(String) } });
+    expect(await rows('SELECT id FROM sap_deliveries WHERE idempotency_key = :k', { k: missing.idempotencyKey })).toHaveLength(0);
     // The rejected lot's e-mail went out with it (and is in before a later test clears the mailbox).
     for (const p of await rows<{ email: string }>('SELECT email FROM users WHERE household_id = :h', { h: households.Okafor })) {
       expect((await waitForMail({ to: p.email, subject: 'Sap drop-off not accepted' })).text).toContain('Sour smell');
