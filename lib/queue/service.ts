@@ -1,6 +1,5 @@
 // Server code without the 'server-only' marker: server.ts (plain Node) computes snapshots too.
-import { QueryTypes, type Transaction } from 'sequelize';
-import type { Sequelize } from 'sequelize';
+import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { getSequelize } from '@/db';
 import { currentVersion } from '@/lib/events';
 import type { GradeClass } from '@/lib/sugar';
