@@ -6,12 +6,8 @@ const nextConfig = {
   serverExternalPackages: ['sequelize', 'pg', 'pg-hstore', 'pg-boss', 'nodemailer', 'socket.io', '@aws-sdk/client-s3', 'pdfkit', 'stripe'],
   poweredByHeader: false,
   reactStrictMode: true,
-  experimental: {
-    // proxy.ts sees request bodies up to this size (an upload of 10 MB and its multipart
-    // overhead); it refuses larger ones by their Content-Length with 413.
-    proxyClientMaxBodySize: '11mb',
-  },
-  // Static files are outside proxy.ts; they get the headers that do not need a nonce.
+  // Static files are outside proxy.ts; they get the headers that do not need a nonce (API
+  // answers get theirs in lib/security/api-guard).
   async headers() {
     return [
       {

@@ -18,6 +18,31 @@ export class BodyTooLargeError extends Error {
   }
 }
 
+/** How much of a refused body is still read and dropped before the connection is cut. */
+const DRAIN_MAX = 16 * 1024 * 1024;
+
+/**
+ * Reads and drops the rest of a refused body while the refusal is answered, so the client
+ * finishes sending, reads the 413 and can use the connection again (cutting it at once makes the
+ * client's next write fail before it sees the answer). A body that goes on past DRAIN_MAX is cut.
+ */
+async function drain(reader: ReadableStreamDefaultReader<Uint8Array>) {
+  let dropped = 0;
+  try {
+    for (;;) {
+      const { done, value } = await reader.read();
+      if (done) return;
+      dropped += value.byteLength;
+      if (dropped > DRAIN_MAX) {
+        await reader.cancel();
+        return;
+      }
+    }
+  } catch {
+    /* the client went away */
+  }
+}
+
 /**
  * Reads a request body as bytes, stopping as soon as it passes `limit`: a body sent in chunks
  * with no Content-Length is held to the same limit as one that declares its length.
@@ -34,7 +59,7 @@ export async function readBodyLimited(req: Request, limit: number): Promise<Uint
     if (done) break;
     size += value.byteLength;
     if (size > limit) {
-      await reader.cancel().catch(() => undefined);
+      void drain(reader);
       throw new BodyTooLargeError(limit);
     }
     chunks.push(value);

@@ -3,6 +3,7 @@ import type { Role } from '@/lib/roles';
 import { type PersonCtx, requireContext } from './context';
 import { notFound } from './errors';
 import { errorResponse, json } from './http';
+import { guarded } from '@/lib/security/api-guard';
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
@@ -56,7 +57,8 @@ async function run<P extends Params, C>(
 }
 
 /**
- * A route handler for signed-in people: builds the request context (fresh from the database),
+ * A route handler for signed-in people: refuses cross-site, mistyped and oversized writes
+ * (lib/security/api-guard), builds the request context (fresh from the database),
  * checks path ids, and maps every error to the API's error body. Return a Response, or data for
  * a 200 JSON answer.
  *
@@ -64,18 +66,20 @@ async function run<P extends Params, C>(
  *   export const PATCH = route<{ id: string }>(async ({ ctx, req, params }) => changeThing(ctx, params.id, await readJson(req, Patch)));
  */
 export function route<P extends Params = Params>(handler: (args: AuthedArgs<P>) => Promise<unknown>, opts: RouteOptions = {}) {
-  return (req: Request, nextCtx: NextCtx<P>): Promise<Response> =>
+  return guarded((req: Request, nextCtx: NextCtx<P>): Promise<Response> =>
     run(
       req,
       nextCtx,
       opts,
       () => requireContext({ roles: opts.roles, req }),
       (params, ctx) => handler({ req, params, url: new URL(req.url), ctx }),
-    );
+    ),
+  );
 }
 
 /** A route handler open to everyone (sign-up links, health): the same error mapping, no context. */
 export function publicRoute<P extends Params = Params>(handler: (args: RouteArgs<P>) => Promise<unknown>, opts: Omit<RouteOptions, 'roles'> = {}) {
-  return (req: Request, nextCtx: NextCtx<P>): Promise<Response> =>
-    run(req, nextCtx, opts, async () => null, (params) => handler({ req, params, url: new URL(req.url) }));
+  return guarded((req: Request, nextCtx: NextCtx<P>): Promise<Response> =>
+    run(req, nextCtx, opts, async () => null, (params) => handler({ req, params, url: new URL(req.url) })),
+  );
 }

@@ -360,6 +360,33 @@ describe('photos', () => {
     expect(tooBig.status).toBe(413);
   });
 
+  it('answers 413 for a photo over 10 MB sent in chunks with no Content-Length, while it arrives', async () => {
+    const boundary = 'brixhouse-test-boundary';
+    const head = new TextEncoder().encode(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="big.png"\r\nContent-Type: image/png\r\n\r\n`);
+    const chunk = new Uint8Array(256 * 1024);
+    chunk.set(PNG);
+    let sent = 0;
+    const stream = new ReadableStream<Uint8Array>({
+      start(controller) {
+        controller.enqueue(head);
+      },
+      pull(controller) {
+        // 11 MB of file: past the limit before the form could end.
+        if (sent >= 11 * 1024 * 1024) return controller.close();
+        sent += chunk.byteLength;
+        controller.enqueue(chunk);
+      },
+    });
+    const res = await fetch(`${BASE_URL}/api/uploads`, {
+      method: 'POST',
+      headers: { cookie: sugarmaker.cookieHeader, 'content-type': `multipart/form-data; boundary=${boundary}` },
+      body: stream,
+      duplex: 'half',
+    } as RequestInit);
+    expect(res.status).toBe(413);
+    expect((await res.json()).error.fields.file).toMatch(/10 MB/);
+  });
+
   it('answers 404 for a photo key of another cooperative, and refuses it on a lot', async () => {
     const foreign = `${otherCoop.cooperativeId}/photos/2026-12/abcdefghijklmnopqrstuvwxyz012345.png`;
     const res = await fetch(`${BASE_URL}/api/photos/${foreign}`, { headers: { cookie: sugarmaker.cookieHeader } });

@@ -143,6 +143,29 @@ describe('security headers', () => {
       expect(res.headers.get('x-content-type-options')).toBe('nosniff');
     }
   }, 120_000);
+
+  it('every kind of API answer carries the same headers: refusals, errors, sign-in and health', async () => {
+    const answers: [string, Response][] = [
+      ['signed out (401)', await fetch(`${BASE_URL}/api/households`)],
+      ['no such record (404)', await fetch(`${BASE_URL}/api/deliveries/00000000-0000-4000-8000-000000000000`, { headers: { cookie: coordinator.cookieHeader } })],
+      ['no such API address (404)', await fetch(`${BASE_URL}/api/no-such-thing/here`, { headers: { cookie: coordinator.cookieHeader } })],
+      ['cross-site write (403)', await post('/api/households', '{}', { 'content-type': 'application/json', origin: 'http://evil.example' })],
+      ['wrong body type (415)', await post('/api/households', 'x', { 'content-type': 'text/plain' })],
+      ['invalid body (422)', await post('/api/households', '{}', { 'content-type': 'application/json' })],
+      ['next-auth (200)', await fetch(`${BASE_URL}/api/auth/csrf`)],
+      ['health', await fetch(`${BASE_URL}/api/health`)],
+    ];
+    for (const [what, res] of answers) {
+      expect(res.status, what).toBeLessThan(600);
+      expect(res.headers.get('cache-control'), what).toContain('no-store');
+      expect(res.headers.get('x-content-type-options'), what).toBe('nosniff');
+      expect(res.headers.get('x-frame-options'), what).toBe('DENY');
+      expect(res.headers.get('cross-origin-opener-policy'), what).toBe('same-origin');
+      expect(res.headers.get('permissions-policy'), what).toContain('geolocation=()');
+    }
+    expect(answers.map(([, r]) => r.status)).toEqual([401, 404, 404, 403, 415, 422, 200, expect.any(Number)]);
+    expect((await answers[2][1].json()).error.code).toBe('no_such_route');
+  }, 60_000);
 });
 
 describe('the realtime endpoint', () => {

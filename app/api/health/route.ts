@@ -1,6 +1,7 @@
 import { NextResponse } from 'next/server';
 import { getSequelize } from '@/db';
 import { mailHealthy } from '@/lib/mail/transport';
+import { guarded } from '@/lib/security/api-guard';
 
 export const dynamic = 'force-dynamic';
 
@@ -14,7 +15,7 @@ async function databaseHealthy() {
 }
 
 /** Liveness of the app and the two services it needs; 503 when either is down. */
-export async function GET() {
+export const GET = guarded(async () => {
   const [database, mail] = await Promise.all([databaseHealthy(), mailHealthy()]);
   const ok = database && mail;
   return NextResponse.json(
@@ -27,4 +28,4 @@ export async function GET() {
     },
     { status: ok ? 200 : 503 },
   );
-}
+});

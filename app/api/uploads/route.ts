@@ -2,6 +2,7 @@ import { MAX_PHOTO_BYTES, PhotoRejected, storePhoto } from '@/lib/storage';
 import { AppError, invalid, tooLarge, unsupported } from '@/lib/server/errors';
 import { json } from '@/lib/server/http';
 import { route } from '@/lib/server/route';
+import { BodyTooLargeError, readBodyLimited } from '@/lib/security/limits';
 
 /** Room for the multipart envelope around a 10 MB file. */
 const MAX_BODY = MAX_PHOTO_BYTES + 64 * 1024;
@@ -15,9 +16,18 @@ export const POST = route(
     if (!(req.headers.get('content-type') ?? '').startsWith('multipart/form-data')) {
       throw onFile(unsupported('Send the photo as multipart form data in the field "file".'), 'Choose a photo.');
     }
+    let bytes: Uint8Array;
+    try {
+      // Held to the limit while it arrives, also when it comes in chunks with no Content-Length.
+      bytes = await readBodyLimited(req, MAX_BODY);
+    } catch (err) {
+      if (err instanceof BodyTooLargeError) throw onFile(tooLarge('The photo is larger than 10 MB.'), 'The photo is larger than 10 MB.');
+      throw err;
+    }
     let file: FormDataEntryValue | null;
     try {
-      file = (await req.formData()).get('file');
+      const form = new Response(bytes as BodyInit, { headers: { 'content-type': req.headers.get('content-type') ?? '' } });
+      file = (await form.formData()).get('file');
     } catch {
       throw new AppError('bad_request', 'unreadable_upload', 'The upload could not be read; try again.', { fields: { file: 'Choose a photo.' } });
     }

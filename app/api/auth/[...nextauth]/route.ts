@@ -3,8 +3,10 @@ import { authOptions } from '@/lib/auth/options';
 import { clientIp } from '@/lib/security/client-ip';
 import { assertNotLocked, recordFailure, TooManyAttemptsError, tooManyAttemptsResponse } from '@/lib/security/rate-limit';
 import { appUrl } from '@/lib/env';
+import { guarded } from '@/lib/security/api-guard';
 
-const handler = NextAuth(authOptions);
+const nextAuth = NextAuth(authOptions);
+const handler = (req: Request, ctx: Ctx): Promise<Response> => nextAuth(req, ctx);
 
 interface Ctx {
   params: Promise<{ nextauth: string[] }>;
@@ -15,7 +17,7 @@ interface Ctx {
  * or address gets 429 and Retry-After before any password is compared, and each failed
  * sign-in counts against both.
  */
-async function POST(req: Request, ctx: Ctx) {
+async function signInAware(req: Request, ctx: Ctx): Promise<Response> {
   const { nextauth } = await ctx.params;
   if (nextauth.join('/') !== 'callback/credentials') return handler(req, ctx);
 
@@ -34,4 +36,6 @@ async function POST(req: Request, ctx: Ctx) {
   return res;
 }
 
-export { handler as GET, POST };
+// Behind the API's checks like every route: a sign-in posted from another site is refused.
+export const GET = guarded(handler);
+export const POST = guarded(signInAware);
