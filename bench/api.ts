@@ -84,7 +84,7 @@ function target(spec: RouteSpec, c: ApiContext): LoadTarget {
   };
 }
 
-/** Whether a route is on this build: a missing route answers Next's HTML 404. */
+/** Whether a route is on this build: a missing route answers 404 (JSON from app/api/[...path], or HTML on an older build). */
 export async function probe(spec: RouteSpec, c: ApiContext): Promise<{ available: boolean; status: number; note?: string }> {
   if (spec.kind === 'baseline') return { available: true, status: 200 };
   if (spec.kind === 'write') {

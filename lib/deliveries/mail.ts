@@ -5,7 +5,7 @@ import { db } from '@/db/models';
 import { appUrl } from '@/lib/env';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { type UnitSystem } from '@/lib/sugar';
-import { formatBrix, formatTemperature, formatVolume } from '@/lib/format/units';
+import { showBrix, showTemperature, showVolume } from '@/lib/figures';
 
 export interface RejectedLot {
   id: string;
@@ -28,13 +28,14 @@ export interface MailCoop {
 /** The rejection e-mail's subject and text (exported for tests and previews). */
 export function rejectionText(lot: RejectedLot, householdName: string, coop: MailCoop) {
   const when = DateTime.fromJSDate(lot.receivedAt, { zone: coop.timeZone }).toFormat("ccc d LLL yyyy, HH:mm ZZZZ");
-  const volume = formatVolume(lot.volumeL, coop.unitSystem);
+  // The same figures as the desk shows: "52.8 gal", not "52.83 gal".
+  const volume = showVolume(lot.volumeL, coop.unitSystem);
   const subject = `Sap drop-off not accepted: ${volume} on ${DateTime.fromJSDate(lot.receivedAt, { zone: coop.timeZone }).toFormat('ccc d LLL')}`;
   const text =
     `Hello ${householdName} household,\n\n` +
     `The sap your household brought to ${coop.name} was not accepted, and it will not count toward your sugar or your share of the syrup.\n\n` +
     `Reason: ${lot.reason}\n\n` +
-    `Lot: ${volume} at ${formatBrix(lot.brix)}, ${formatTemperature(lot.sapTempC, coop.unitSystem)} at the tank, collected ${lot.collectedOn}, received ${when}.\n\n` +
+    `Lot: ${volume} at ${showBrix(lot.brix)}, ${showTemperature(lot.sapTempC, coop.unitSystem)} at the tank, collected ${lot.collectedOn}, received ${when}.\n\n` +
     `Sap keeps best cold (at or below about 3–4 °C / 38–40 °F), in clean covered containers, and brought in within a day or two of collection. ` +
     `If you think this is a mistake, speak to the sugarmaker on duty; corrections are kept on record.\n\n` +
     `Your drop-offs: ${appUrl()}/deliveries\n\n— Brixhouse, the shared book of your sugarhouse`;

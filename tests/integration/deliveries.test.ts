@@ -4,6 +4,7 @@ import { DateTime } from 'luxon';
 import { Client, signedIn } from './http';
 import { closeTestDb, larkspurHouseholds, rows, testDb } from './db';
 import { clearMail, listMail, waitForMail } from '../mailbox';
+import { showBrix, showTemperature, showVolume } from '@/lib/figures';
 import { BASE_URL } from '../test-env';
 import { sugarKg } from '@/lib/sugar';
 import { toDeliveryInput, type DeliveryFormValues } from '@/lib/deliveries/form';
@@ -319,6 +320,9 @@ describe('rejected lots', () => {
     for (const p of people) {
       const mail = await waitForMail({ to: p.email, subject: 'Sap drop-off not accepted' });
       expect(mail.text).toContain(res.body.reason);
+      // The lot's figures as the desk shows them (Larkspur works in US units): "56.1 gal", not "56.11 gal".
+      expect(mail.subject).toContain(`${showVolume(212.4, 'us')} on`);
+      expect(mail.text).toContain(`Lot: ${showVolume(212.4, 'us')} at ${showBrix(2.6)}, ${showTemperature(3.1, 'us')} at the tank`);
     }
     expect((await listMail()).some((m) => m.to.some((t) => t.address === 'okafor@larkspur.example'))).toBe(false);
   });
