@@ -10,7 +10,7 @@ import { toast } from '@/components/ui/toaster';
 import { ApiClientError, apiSend } from '@/lib/client/api';
 import { FORM_FIELD_OF, parseNumber, toDeliveryInput, type DeliveryFormValues } from '@/lib/deliveries/form';
 import { collectionStart, recommend, type ShelfSettings } from '@/lib/deliveries/rules';
-import { CONTAMINATIONS, DeliveryInput, type Contamination } from '@/lib/deliveries/schema';
+import { CONTAMINATIONS, type Contamination } from '@/lib/deliveries/options';
 import type { DeliveryDto } from '@/lib/deliveries/types';
 import { boilHours, sugarKg, syrupLitres, type UnitSystem } from '@/lib/sugar';
 import { cn } from '@/lib/utils';
@@ -28,6 +28,17 @@ export interface DeliveryFormProps {
   /** The season lots go into; null when none is open. */
   seasonLabel: string | null;
 }
+
+/**
+ * The validation schema (the same one the route handler uses), and zod with it, loads when the
+ * form is first focused, not with the page: the desk's first paint does not wait for it.
+ */
+let schema: Promise<(typeof import('@/lib/deliveries/schema'))['DeliveryInput']> | undefined;
+const loadSchema = () => {
+  schema ??= import('@/lib/deliveries/schema').then((m) => m.DeliveryInput);
+  schema.catch(() => (schema = undefined)); // a failed load (network) is tried again next time
+  return schema;
+};
 
 const CONTAMINATION_LABEL: Record<Contamination, string> = {
   none: 'None',
@@ -76,6 +87,7 @@ export function DeliveryForm({ units, timeZone, today, households, shelf, syrupB
   const fileInput = useRef<HTMLInputElement>(null);
 
   const resolver: Resolver<DeliveryFormValues> = async (values) => {
+    const DeliveryInput = await loadSchema();
     const parsed = DeliveryInput.safeParse(toDeliveryInput(values, units, key));
     const errors: FieldErrors<DeliveryFormValues> = {};
     if (!parsed.success) {
@@ -208,7 +220,7 @@ export function DeliveryForm({ units, timeZone, today, households, shelf, syrupB
   const tu = tempUnit(units);
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-label="Log a sap drop-off" className="grid gap-6 md:grid-cols-[minmax(0,1fr)_18rem] lg:grid-cols-[minmax(0,1fr)_22rem]">
+    <form onSubmit={onSubmit} onFocusCapture={() => void loadSchema()} noValidate aria-label="Log a sap drop-off" className="grid gap-6 md:grid-cols-[minmax(0,1fr)_18rem] lg:grid-cols-[minmax(0,1fr)_22rem]">
       <div className="flex flex-col gap-5">
         {formError ? <Alert tone="danger">{formError}</Alert> : null}
         {!seasonLabel ? <Alert tone="warning" title="No open season">A coordinator opens a season in Settings before sap can be logged.</Alert> : null}

@@ -1,28 +1,10 @@
 import { z } from 'zod';
+import { CLARITIES, CONTAMINATIONS, DECISIONS, LIMITS, STATUSES } from './options';
 
 /** Client-safe: the form and the route handlers validate with these same schemas (SI units). */
 
-export const CLARITIES = ['clear', 'cloudy'] as const;
-export const CONTAMINATIONS = ['none', 'insects', 'debris', 'off-odour', 'other'] as const;
-export const DECISIONS = ['accept', 'reject'] as const;
-export const STATUSES = ['accepted', 'rejected'] as const;
-
-export type Clarity = (typeof CLARITIES)[number];
-export type Contamination = (typeof CONTAMINATIONS)[number];
-export type Decision = (typeof DECISIONS)[number];
-export type DeliveryStatus = (typeof STATUSES)[number];
-
-/** Bounds shared by the form, the handler and the database's check constraints. */
-export const LIMITS = Object.freeze({
-  maxVolumeL: 100_000,
-  maxBrix: 85,
-  minSapTempC: -10,
-  maxSapTempC: 40,
-  /** A lot collected longer ago than this is a typing mistake, not old sap. */
-  maxCollectedDaysAgo: 60,
-  reason: 500,
-  note: 1000,
-});
+export { CLARITIES, CONTAMINATIONS, DECISIONS, LIMITS, STATUSES };
+export type { Clarity, Contamination, Decision, DeliveryStatus } from './options';
 
 const isoDay = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Give the day as YYYY-MM-DD.').refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)), 'That is not a calendar day.');
 

@@ -92,7 +92,9 @@ test('a cloudy lot is recommended for rejection, kept with its reason, and the h
 
   const mail = await waitForMail({ to: 'szabo@larkspur.example', subject: 'Sap drop-off not accepted' });
   expect(mail.text).toContain(reason);
-  expect(mail.text).toContain('31.00 gal');
+  // The lot's figures as the desk's table shows them.
+  await expect(row).toContainText('31.0');
+  expect(mail.text).toContain('Lot: 31.0 gal at 1.9 °Bx, 39.0 °F at the tank');
 });
 
 test('a double-click on submit makes one lot, and a failed submit keeps what was typed', async ({ page, signInAs }) => {
