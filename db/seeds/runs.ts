@@ -37,6 +37,10 @@ interface Lot {
 
 /** Hours of boiling a run is given at most, so a lot can be split over two runs. */
 const MAX_RUN_HOURS = 8;
+/** Least syrup a demo run is fired for, litres (about a gallon; common practice, no source). */
+const MIN_RUN_SYRUP_L = 4;
+/** Least syrup in one demo draw-off, litres (invented for the demo). */
+const MIN_DRAW_L = 2;
 /** Cords of dry hardwood per litre of syrup: about 1 cord per 25 US gal of syrup (from memory; trade rule of thumb). */
 const CORDS_PER_SYRUP_L = 1 / (25 * 3.785411784);
 
@@ -44,8 +48,8 @@ const CORDS_PER_SYRUP_L = 1 / (25 * 3.785411784);
  * Demo boil runs: about one a day through last year's season (every accepted lot boiled) and
  * through the open season until two days ago, each taking the oldest waiting sap first; lots that
  * arrived since the last run stay in the queue. Each run's syrup is 93–97 % of what its sugar
- * makes at the draw-off °Brix, in two to four draw-offs whose colour darkens as the season goes
- * on; fuel is costed at the season's price. Invented data.
+ * makes at the draw-off °Brix, in two to four draw-offs of at least 2 L whose colour darkens as
+ * the season goes on (a run that would make under 4 L is not fired: its sap waits for the next); fuel is costed at the season's price. Invented data.
  */
 export async function seedRuns(a: SeedRunsArgs) {
   const m = db();
@@ -104,6 +108,12 @@ export async function seedRuns(a: SeedRunsArgs) {
       if (!takes.length) continue;
       const finishedAt = start.plus({ minutes: Math.round((hours + 0.75) * 60) });
       if (finishedAt.toJSDate() > a.now) break;
+      // Syrup: 93–97 % of the sugar taken in.
+      const sugar = takes.reduce((sum, t) => sum + sugarKg(t.litres, t.lot.brix), 0) * (0.93 + rand() * 0.04);
+      const syrupL = sugar / ((densityFromBrix(67) * 67) / 100);
+      // Nobody fires the evaporator for a pot's worth: the sap waits for the next run (the last run
+      // of a finished season boils whatever is left).
+      if (!finalRun && syrupL < MIN_RUN_SYRUP_L) continue;
       number++;
       runs++;
       const year = s.season.startsOn.slice(0, 4);
@@ -136,14 +146,14 @@ export async function seedRuns(a: SeedRunsArgs) {
       );
       for (const t of takes) t.lot.left = t.litres === t.lot.left ? 0 : t.lot.left - t.litres;
 
-      // Syrup: 93–97 % of the sugar taken in, split over two to four draw-offs.
-      const sugar = takes.reduce((sum, t) => sum + sugarKg(t.litres, t.lot.brix), 0) * (0.93 + rand() * 0.04);
-      const draws = 2 + Math.floor(rand() * 3);
+      // Two to four draw-offs, each of at least MIN_DRAW_L.
+      const draws = Math.min(2 + Math.floor(rand() * 3), Math.max(1, Math.floor(syrupL / MIN_DRAW_L)));
       const progress = day.diff(seasonStart, 'days').days / Math.max(1, s.span);
       for (let i = 0; i < draws; i++) {
         const brix = Math.round((66.9 + rand() * 0.8) * 10) / 10;
-        // Litres floored to 0.1 L, so the syrup never exceeds what its sugar makes.
-        const litres = Math.floor(((sugar / draws) / ((densityFromBrix(brix) * brix) / 100)) * 10) / 10;
+        // Litres floored to 0.01 L (syrup is owed by the hundredth), so the syrup never exceeds
+        // what its sugar makes, and the flooring costs a 2 L draw-off at most 0.5 %.
+        const litres = Math.floor(((sugar / draws) / ((densityFromBrix(brix) * brix) / 100)) * 100) / 100;
         const tc = Math.max(8, Math.min(95, Math.round((95 - progress * 110 + (rand() - 0.5) * 12) * 10) / 10));
         const klass: GradeClass = gradeClass(tc);
         await m.SyrupDraw.create(
@@ -161,7 +171,6 @@ export async function seedRuns(a: SeedRunsArgs) {
           { transaction },
         );
       }
-      const syrupL = sugar / ((densityFromBrix(67) * 67) / 100);
       const cords = Math.max(0.1, Math.round(syrupL * CORDS_PER_SYRUP_L * 20) / 20);
       const loads = cords >= 0.3 ? [Math.round((cords / 2) * 100) / 100, Math.round((cords - Math.round((cords / 2) * 100) / 100) * 100) / 100] : [cords];
       await m.FuelUse.bulkCreate(

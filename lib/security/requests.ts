@@ -41,8 +41,8 @@ function mediaType(headers: Headers): string {
 /**
  * Whether an API request may go on to its route handler; null when it may.
  * A write must come from the app's own pages (Origin, or the browser's Sec-Fetch-Site), carry
- * JSON (multipart on upload routes; next-auth's own form posts under /api/auth) and stay
- * under the body limit.
+ * JSON (multipart on upload routes; next-auth's own form posts under /api/auth, with their
+ * length) and stay under the body limit.
  */
 export function checkApiRequest({ method, pathname, headers, ownOrigins: own }: RequestFacts): RequestVerdict | null {
   const m = method.toUpperCase();
@@ -62,6 +62,11 @@ export function checkApiRequest({ method, pathname, headers, ownOrigins: own }: 
     return { status: 413, code: 'body_too_large', message: `The request body is larger than ${Math.round(limit / 1024)} kB.` };
   }
   if (!hasBody) return null;
+  // next-auth reads the sign-in form whole, with no limit of its own: it must say its length
+  // (a browser's form post and next-auth's own client always do), so the limit above holds.
+  if (chunked && length === null && pathname.startsWith('/api/auth/')) {
+    return { status: 411, code: 'length_required', message: 'Send the sign-in form with its length (Content-Length).' };
+  }
 
   const type = mediaType(headers);
   if (pathname.startsWith('/api/auth/')) {

@@ -99,6 +99,26 @@ describe('body size', () => {
   });
 });
 
+describe('the sign-in form', () => {
+  it('sent in chunks with no Content-Length is refused (411) before next-auth reads it', async () => {
+    const body = new TextEncoder().encode(new URLSearchParams({ email: 'okafor@larkspur.example', password: 'x'.repeat(200_000) }).toString());
+    const stream = new ReadableStream<Uint8Array>({
+      start(controller) {
+        for (let i = 0; i < body.length; i += 16 * 1024) controller.enqueue(body.slice(i, i + 16 * 1024));
+        controller.close();
+      },
+    });
+    const res = await fetch(`${BASE_URL}/api/auth/callback/credentials`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/x-www-form-urlencoded', origin: BASE_URL },
+      body: stream,
+      duplex: 'half',
+    } as RequestInit);
+    expect(res.status).toBe(411);
+    expect((await res.json()).error.code).toBe('length_required');
+  });
+});
+
 describe('security headers', () => {
   const anonymousPages = ['/', '/sign-in', '/forgot-password', '/reset-password/not-a-real-token-0000000000', '/welcome/not-a-real-token-000000000', '/no-such-page'];
   const signedInPages = ['/home', '/calendar', '/households', '/settings', '/sugarhouse', '/account'];
