@@ -49,7 +49,8 @@ const CORDS_PER_SYRUP_L = 1 / (25 * 3.785411784);
  * through the open season until two days ago, each taking the oldest waiting sap first; lots that
  * arrived since the last run stay in the queue. Each run's syrup is 93–97 % of what its sugar
  * makes at the draw-off °Brix, in two to four draw-offs of at least 2 L whose colour darkens as
- * the season goes on (a run that would make under 4 L is not fired: its sap waits for the next); fuel is costed at the season's price. Invented data.
+ * the season goes on (a run that would make under 4 L is not fired: its sap waits for the next);
+ * fuel is costed at the season's price. Invented data.
  */
 export async function seedRuns(a: SeedRunsArgs) {
   const m = db();
