@@ -35,8 +35,10 @@ export interface DeliveryFormProps {
  */
 let schema: Promise<(typeof import('@/lib/deliveries/schema'))['DeliveryInput']> | undefined;
 const loadSchema = () => {
-  schema ??= import('@/lib/deliveries/schema').then((m) => m.DeliveryInput);
-  schema.catch(() => (schema = undefined)); // a failed load (network) is tried again next time
+  if (!schema) {
+    schema = import('@/lib/deliveries/schema').then((m) => m.DeliveryInput);
+    schema.catch(() => (schema = undefined)); // a failed load (network) is tried again next time
+  }
   return schema;
 };
 

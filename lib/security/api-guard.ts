@@ -1,5 +1,5 @@
 import { NextResponse } from 'next/server';
-import { checkApiRequest, ownOrigins } from './requests';
+import { checkApiRequest, ownOrigins, WRITE_METHODS } from './requests';
 import { COMMON_SECURITY_HEADERS } from './headers';
 
 /**
@@ -13,6 +13,8 @@ type Handler<A extends unknown[]> = (req: Request, ...rest: A) => Response | Pro
 
 /** The refusal of an API request that may not reach its handler (cross-site, wrong type, too large); null when it may. */
 export function refuseApiRequest(req: Request): Response | null {
+  // Reads pass untouched: nothing below applies to them, and they are most of the traffic.
+  if (!WRITE_METHODS.has(req.method.toUpperCase())) return null;
   const url = new URL(req.url);
   const verdict = checkApiRequest({
     method: req.method,

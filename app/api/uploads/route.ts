@@ -11,14 +11,12 @@ const onFile = (e: AppError, message: string) => new AppError(e.kind, e.code, e.
 /** `POST /api/uploads`: multipart `file`, an image of at most 10 MB → 201 `{ photoKey }`. */
 export const POST = route(
   async ({ ctx, req }) => {
-    const length = Number(req.headers.get('content-length') ?? NaN);
-    if (Number.isFinite(length) && length > MAX_BODY) throw onFile(tooLarge('The photo is larger than 10 MB.'), 'The photo is larger than 10 MB.');
     if (!(req.headers.get('content-type') ?? '').startsWith('multipart/form-data')) {
       throw onFile(unsupported('Send the photo as multipart form data in the field "file".'), 'Choose a photo.');
     }
     let bytes: Uint8Array;
     try {
-      // Held to the limit while it arrives, also when it comes in chunks with no Content-Length.
+      // Refused by its Content-Length, or while it arrives when it comes in chunks without one.
       bytes = await readBodyLimited(req, MAX_BODY);
     } catch (err) {
       if (err instanceof BodyTooLargeError) throw onFile(tooLarge('The photo is larger than 10 MB.'), 'The photo is larger than 10 MB.');
