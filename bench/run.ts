@@ -119,12 +119,13 @@ async function main() {
       report.commands.push(`autocannon -c 50 -d ${durationS} (-c 20 for the POST) against each route, ${rounds} interleaved rounds, signed in as ${seed.coordinatorEmail}`);
     }
 
-    if (sections.has('scaleout')) {
+    // A second process for the scale-out figures and the live queue across processes.
+    const b = sections.has('scaleout') || sections.has('live') ? await startApp('bench-server-b', port + 1) : null;
+    const both = b ? { ...ctx, appUrls: [a.url, b.url] } : ctx;
+    if (b && sections.has('scaleout')) {
       log('Scale-out: one process against two');
-      const b = await startApp('bench-server-b', port + 1);
       const reads = specs.filter((s) => s.kind === 'read' || s.kind === 'ceiling');
       const { ok, missing } = await available(reads, ctx);
-      const both = { ...ctx, appUrls: [a.url, b.url] };
       const single: Awaited<ReturnType<typeof runApi>> = ok.map((spec) => ({ spec, runs: [], written: [] }));
       const dual: typeof single = ok.map((spec) => ({ spec, runs: [], written: [] }));
       for (let round = 1; round <= rounds; round++) {
@@ -156,18 +157,18 @@ async function main() {
         report.figures.push({ section: 'scaleout', name: `${m.spec.name}: two processes`, value: null, unit: 'req/s', baseline: null, ratio: null, target: '≥ 1.3× one process', met: false, note: m.note });
       }
       report.commands.push('scale-out: autocannon with both server addresses (its connections spread evenly over the two processes), interleaved with the one-process run');
-      if (sections.has('live')) {
-        log('Live queue across two processes');
-        report.figures.push(...(await liveQueue(both, { counts: [500], durationS, log, label: ' on two processes' })));
-      }
-      await stopProcess(b.child);
     }
+    if (b && sections.has('live')) {
+      log('Live queue across two processes');
+      report.figures.push(...(await liveQueue(both, { counts: [500], durationS, rounds, log, label: ' on two processes' })));
+    }
+    if (b) await stopProcess(b.child);
 
     if (sections.has('live')) {
       log('Live queue');
       if ((await probe(specs.find((x) => x.name === 'GET /api/queue')!, ctx)).available) {
         try {
-          report.figures.push(...(await liveQueue(ctx, { counts: [100, 500], durationS, log })));
+          report.figures.push(...(await liveQueue(ctx, { counts: [100, 500], durationS, rounds, log })));
         } catch (err) {
           log(`  live queue: ${(err as Error).message}`);
           report.figures.push({ section: 'live', name: 'live queue', value: null, unit: 'ms', baseline: null, ratio: null, target: '100 % delivered', met: false, note: (err as Error).message });
