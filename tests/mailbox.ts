@@ -6,6 +6,7 @@ export interface CaughtMail {
   subject: string;
   text: string;
   to: { address: string; name?: string }[];
+  headers?: Record<string, string | string[]>;
   attachments?: { filename?: string; generatedFileName: string; contentType: string }[];
 }
 

@@ -88,12 +88,23 @@ export function statementMail(s: Statement) {
   return { subject, text, html };
 }
 
+/**
+ * One Message-ID per statement, the same on every attempt: if the server stops after the mail
+ * server took a statement but before its `sent_at` committed, the job sends it again, and mail
+ * servers and programs that drop a second message with an ID they already hold show it once.
+ */
+export function statementMessageId(settlementId: string, from: string = env().MAIL_FROM): string {
+  const domain = /@([A-Za-z0-9.-]+)>?\s*$/.exec(from)?.[1] ?? 'brixhouse.invalid';
+  return `<statement-${settlementId}@${domain}>`;
+}
+
 const fileName = (s: Statement) => `statement-${s.seasonLabel.replace(/[^A-Za-z0-9]+/g, '-').toLowerCase()}-${s.householdName.replace(/[^A-Za-z0-9]+/g, '-').toLowerCase()}.pdf`;
 
 /**
  * Sends one statement unless it has gone already. The statement's row stays locked while the
  * mail goes out and `sent_at` is set in the same transaction, so two jobs for one statement
- * (a re-queue after a restart) send it once; a failed send rolls back and the job retries.
+ * (a re-queue after a restart) send it once; a failed send rolls back and the job retries. A stop
+ * between the mail server's answer and the commit sends it again, under the same Message-ID.
  */
 export async function deliverStatement(settlementId: string, sequelize: Sequelize = getSequelize()): Promise<'sent' | 'already-sent' | 'missing'> {
   return sequelize.transaction(async (transaction) => {
@@ -114,6 +125,7 @@ export async function deliverStatement(settlementId: string, sequelize: Sequeliz
       const pdf = await statementPdf(statement, payUrl(statement.id));
       await mailTransport().sendMail({
         from: env().MAIL_FROM,
+        messageId: statementMessageId(settlementId),
         to: people.map((p) => ({ name: p.name, address: p.email })),
         subject: mail.subject,
         text: mail.text,

@@ -79,6 +79,9 @@ describe('sending the statements while the mail server is down', () => {
     expect(ash.text).toContain('Total due: $129.12');
     expect(ash.text).toContain('Syrup owed: 12.74 L');
     expect(ash.text).toContain(`/statements/${ids.ash}/pay`);
+    // Every attempt at one statement carries the same Message-ID (MAIL_FROM's domain).
+    expect(ash.headers?.['message-id']).toBe(`<statement-${ids.ash}@brixhouse.example>`);
+    expect(new Set(got.map((g) => g[0].headers?.['message-id'])).size).toBe(3);
     const pdf = ash.attachments?.find((x) => x.contentType === 'application/pdf');
     expect(pdf).toBeTruthy();
     const file = await fetch(`${MAILDEV_URL}/api/email/${ash.id}/attachment/${encodeURIComponent(pdf!.generatedFileName)}`);
