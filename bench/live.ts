@@ -23,7 +23,7 @@ interface LiveRound {
 }
 
 /** One measurement: `count` viewers connected, a drop-off every 200 ms for `durationS` under the API load. */
-async function liveRound(ctx: ApiContext, count: number, durationS: number, log: (s: string) => void, label: string): Promise<LiveRound> {
+async function liveRound(ctx: ApiContext, count: number, durationS: number, log: (s: string) => void, label: string, withLoad: boolean): Promise<LiveRound> {
   const specs = apiRoutes(ctx);
   const write = specs.find((s) => s.kind === 'write')!;
   const read = specs.find((s) => s.name.startsWith('GET /api/slots'))!;
@@ -51,10 +51,10 @@ async function liveRound(ctx: ApiContext, count: number, durationS: number, log:
   await sleep(1_000);
 
   // The API load of the benchmark runs meanwhile (50 connections on a read route).
-  const loadDone = load(
-    { name: read.name, url: ctx.appUrls.map((u) => `${u}${read.path}`), headers: { cookie: ctx.cookie, accept: 'application/json' } },
-    durationS,
-  );
+  // (--live-load no: without it, to tell the load's share of the latency from the rest.)
+  const loadDone = withLoad
+    ? load({ name: read.name, url: ctx.appUrls.map((u) => `${u}${read.path}`), headers: { cookie: ctx.cookie, accept: 'application/json' } }, durationS)
+    : Promise.resolve({ reqPerSec: 0, p99Ms: 0 });
   const bodies = Array.from({ length: Math.round((durationS * 1000) / 200) }, () => write.body!());
   const { written, failed } = await new Promise<{ written: { id: string; answeredAt: number }[]; failed: number }>((resolve) => {
     writer.on('message', (m: { type: string; written: { id: string; answeredAt: number }[]; failed: number }) => m.type === 'written' && resolve(m));
@@ -87,13 +87,20 @@ async function liveRound(ctx: ApiContext, count: number, durationS: number, log:
  */
 export async function liveQueue(
   ctx: ApiContext,
-  { counts, durationS, rounds = 3, log, label = '' }: { counts: number[]; durationS: number; rounds?: number; log: (s: string) => void; label?: string },
+  {
+    counts,
+    durationS,
+    rounds = 3,
+    log,
+    label = '',
+    withLoad = true,
+  }: { counts: number[]; durationS: number; rounds?: number; log: (s: string) => void; label?: string; withLoad?: boolean },
 ): Promise<Figure[]> {
   const results = new Map<number, LiveRound[]>(counts.map((c) => [c, []]));
   for (let round = 1; round <= rounds; round++) {
     for (const count of counts) {
       log(`  round ${round}/${rounds}`);
-      results.get(count)!.push(await liveRound(ctx, count, durationS, log, label));
+      results.get(count)!.push(await liveRound(ctx, count, durationS, log, label, withLoad));
     }
   }
   const figures: Figure[] = [];

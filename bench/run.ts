@@ -23,6 +23,8 @@ const { values: args } = parseArgs({
     scale: { type: 'string', default: '1' },
     'settlement-scales': { type: 'string', default: '10,100' },
     'lighthouse-runs': { type: 'string', default: '3' },
+    // Diagnosis only: the live queue without the API load meanwhile (the figures then miss their premise).
+    'live-load': { type: 'string', default: 'yes' },
   },
 });
 const sections = new Set(args.only ? args.only.split(',') : ALL_SECTIONS);
@@ -160,7 +162,7 @@ async function main() {
     }
     if (b && sections.has('live')) {
       log('Live queue across two processes');
-      report.figures.push(...(await liveQueue(both, { counts: [500], durationS, rounds, log, label: ' on two processes' })));
+      report.figures.push(...(await liveQueue(both, { counts: [500], durationS, rounds, log, withLoad: args['live-load'] !== 'no', label: ' on two processes' })));
     }
     if (b) await stopProcess(b.child);
 
@@ -168,7 +170,7 @@ async function main() {
       log('Live queue');
       if ((await probe(specs.find((x) => x.name === 'GET /api/queue')!, ctx)).available) {
         try {
-          report.figures.push(...(await liveQueue(ctx, { counts: [100, 500], durationS, rounds, log })));
+          report.figures.push(...(await liveQueue(ctx, { counts: [100, 500], durationS, rounds, log, withLoad: args['live-load'] !== 'no' })));
         } catch (err) {
           log(`  live queue: ${(err as Error).message}`);
           report.figures.push({ section: 'live', name: 'live queue', value: null, unit: 'ms', baseline: null, ratio: null, target: '100 % delivered', met: false, note: (err as Error).message });
