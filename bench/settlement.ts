@@ -48,7 +48,7 @@ export async function settlementAtScale(
   appUrl: string,
   { scales, repeats, log, report }: { scales: number[]; repeats: number; log: (s: string) => void; report: Report },
 ) {
-  const times: Record<string, Record<number, number>> = { settlement: {}, ledger: {}, finish: {} };
+  const times: Record<string, Record<number, number>> = { settlement: {}, ledger: {}, 'run split': {}, finish: {} };
   for (const scale of scales) {
     log(`  generating the ×${scale} co-op`);
     const started = Date.now();
@@ -83,6 +83,18 @@ export async function settlementAtScale(
       times[`${name} (kept)`][scale] = median(kept);
       log(`  ×${scale} ${name}: first after a change ${ms.map((m) => m.toFixed(0)).join(' / ')} ms, again ${kept.map((m) => m.toFixed(0)).join(' / ')} ms`);
     }
+    // One finished run's split (the ledger's drill-down), after a change.
+    const [finished] = await sql.query<{ id: string }>(
+      "SELECT id FROM boil_runs WHERE cooperative_id = :c AND season_id = :s AND status = 'finished' ORDER BY started_at LIMIT 1",
+      { replacements: { c: seed.cooperativeId, s: seed.openSeasonId }, type: QueryTypes.SELECT },
+    );
+    const splitMs: number[] = [];
+    for (let i = 0; i < repeats; i++) {
+      await change();
+      splitMs.push((await call('GET', `/api/seasons/${seed.openSeasonId}/ledger/runs/${finished.id}`)).ms);
+    }
+    times['run split'][scale] = median(splitMs);
+    log(`  ×${scale} run split: ${splitMs.map((m) => m.toFixed(0)).join(' / ')} ms`);
     // Finishing a run: start one on an idle evaporator, take three waiting lots, draw, fuel, finish.
     const evaporators = await sql.query<{ id: string }>('SELECT id FROM evaporators WHERE cooperative_id = :c ORDER BY name LIMIT :n', {
       replacements: { c: seed.cooperativeId, n: repeats },
@@ -113,11 +125,13 @@ export async function settlementAtScale(
   }
   const figures: Figure[] = [];
   const [small, large] = scales;
-  for (const name of ['settlement', 'ledger', 'finish', 'settlement (kept)', 'ledger (kept)'] as const) {
+  for (const name of ['settlement', 'ledger', 'run split', 'finish', 'settlement (kept)', 'ledger (kept)'] as const) {
     const what =
       name === 'finish'
         ? 'POST /api/runs/:id/finish'
-        : name.endsWith('(kept)')
+        : name === 'run split'
+          ? "GET /api/seasons/:id/ledger/runs/:runId (one run's split, after a change)"
+          : name.endsWith('(kept)')
           ? `GET /api/seasons/:id/${name.split(' ')[0]} again, unchanged (the kept answer)`
           : `GET /api/seasons/:id/${name} (first answer after a change)`;
     const a = times[name][small];

@@ -5,7 +5,7 @@ import { getSequelize } from '@/db';
 import { AppError, type ErrorKind, type FieldErrors } from '@/lib/server/errors';
 import { GRADE_CLASSES } from '@/lib/sugar/grade';
 import { ledgerRuns, settle, sugarByWeek, emptyByClass, type AllocationRow, type DeliveryRow } from './rules';
-import type { FullLedger } from './types';
+import type { Ledger } from './types';
 
 /** What the ledger's reads need: the co-op, and the transaction when the caller holds one. */
 export interface LedgerReadContext {
@@ -52,7 +52,7 @@ export async function seasonOf(ctx: LedgerReadContext, seasonId: string, { lock 
 }
 
 
-interface AllocationDbRow {
+export interface AllocationDbRow {
   runId: string;
   householdId: string;
   sapL: number;
@@ -65,11 +65,35 @@ interface AllocationDbRow {
   fuelCents: number;
 }
 
+/** An allocation as the ledger's rules take it. */
+export const allocationRow = (a: AllocationDbRow): AllocationRow => ({
+  runId: a.runId,
+  householdId: a.householdId,
+  sapL: a.sapL,
+  sugarKg: a.sugarKg,
+  share: a.share,
+  syrupByClassMl: { golden: a.golden, amber: a.amber, dark: a.dark, 'very-dark': a.veryDark },
+  syrupMl: a.golden + a.amber + a.dark + a.veryDark,
+  fuelCents: a.fuelCents,
+});
+
+/** The columns of an allocation the ledger reads (table alias `a`). */
+export const ALLOCATION_COLUMNS = `a.run_id AS "runId", a.household_id AS "householdId", a.sap_l AS "sapL", a.sugar_kg AS "sugarKg", a.share,
+              a.syrup_golden_ml AS golden, a.syrup_amber_ml AS amber, a.syrup_dark_ml AS dark, a.syrup_very_dark_ml AS "veryDark",
+              a.fuel_cents AS "fuelCents"`;
+
+/** The whole co-op's ledger of a season, and for each household the runs its sap went into (a member's list of runs). */
+export interface WholeLedger {
+  ledger: Ledger;
+  runsOf: ReadonlyMap<string, ReadonlySet<string>>;
+}
+
 /**
  * The whole co-op's ledger for a season, from five lean queries (lots grouped by household,
  * status, °Brix and week; allocations; finished runs; fees; payments). Not filtered by role.
+ * Each run comes with its totals; its split between households is read run by run (`ledgerRun`).
  */
-export async function computeLedger(ctx: LedgerReadContext, season: SeasonRow): Promise<FullLedger> {
+export async function computeLedger(ctx: LedgerReadContext, season: SeasonRow): Promise<WholeLedger> {
   const r = { seasonId: season.id, cooperativeId: ctx.cooperativeId, tz: season.timeZone };
   const t = ctx.transaction;
   // In parallel over the pool; one after another on a transaction's single connection.
@@ -101,10 +125,7 @@ export async function computeLedger(ctx: LedgerReadContext, season: SeasonRow): 
       t,
     ),
     () => select<AllocationDbRow>(
-      `SELECT run_id AS "runId", household_id AS "householdId", sap_l AS "sapL", sugar_kg AS "sugarKg", share,
-              syrup_golden_ml AS golden, syrup_amber_ml AS amber, syrup_dark_ml AS dark, syrup_very_dark_ml AS "veryDark",
-              fuel_cents AS "fuelCents"
-         FROM allocations WHERE cooperative_id = :cooperativeId AND season_id = :seasonId`,
+      `SELECT ${ALLOCATION_COLUMNS} FROM allocations a WHERE a.cooperative_id = :cooperativeId AND a.season_id = :seasonId`,
       r,
       t,
     ),
@@ -134,16 +155,13 @@ export async function computeLedger(ctx: LedgerReadContext, season: SeasonRow): 
       t,
     ),
   ]);
-  const allocations: AllocationRow[] = allocs.map((a) => ({
-    runId: a.runId,
-    householdId: a.householdId,
-    sapL: a.sapL,
-    sugarKg: a.sugarKg,
-    share: a.share,
-    syrupByClassMl: { golden: a.golden, amber: a.amber, dark: a.dark, 'very-dark': a.veryDark },
-    syrupMl: a.golden + a.amber + a.dark + a.veryDark,
-    fuelCents: a.fuelCents,
-  }));
+  const allocations = allocs.map(allocationRow);
+  const runsOf = new Map<string, Set<string>>();
+  for (const a of allocations) {
+    let runIds = runsOf.get(a.householdId);
+    if (!runIds) runsOf.set(a.householdId, (runIds = new Set()));
+    runIds.add(a.runId);
+  }
   const deliveries = lots.map((l) => ({ ...l, volumeL: Number(l.volumeL) }));
   const { households: rows, totals } = settle({
     households,
@@ -155,7 +173,7 @@ export async function computeLedger(ctx: LedgerReadContext, season: SeasonRow): 
   const syrupByClassMl = emptyByClass();
   for (const h of rows) for (const c of GRADE_CLASSES) syrupByClassMl[c] += h.syrupByClassMl[c];
   const sum = (f: (h: (typeof rows)[number]) => number) => rows.reduce((s, h) => s + f(h), 0);
-  return {
+  const ledger: Ledger = {
     seasonId: season.id,
     season: { id: season.id, label: season.label, status: season.status, startsOn: season.startsOn, endsOn: season.endsOn },
     currency: season.currency,
@@ -176,6 +194,7 @@ export async function computeLedger(ctx: LedgerReadContext, season: SeasonRow): 
     weeks: sugarByWeek(deliveries, season.timeZone),
     statements,
   };
+  return { ledger, runsOf };
 }
 
 /**
@@ -184,7 +203,7 @@ export async function computeLedger(ctx: LedgerReadContext, season: SeasonRow): 
  * (unique per season × household); returns the ids of the rows made now.
  */
 export async function insertSettlements(ctx: LedgerReadContext, season: SeasonRow, actorId: string | null): Promise<{ id: string }[]> {
-  const ledger = await computeLedger(ctx, season);
+  const { ledger } = await computeLedger(ctx, season);
   const rows = ledger.households.filter((h) => h.sapL > 0 || h.dueCents > 0 || h.syrupMl > 0);
   let made: { id: string }[] = [];
   if (rows.length) {

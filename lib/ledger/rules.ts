@@ -2,7 +2,7 @@ import { DateTime } from 'luxon';
 import { allocate, allocateRun } from '@/lib/sugar/allocate';
 import { sugarKg as sugarOf } from '@/lib/sugar/density';
 import { GRADE_CLASSES, type GradeClass } from '@/lib/sugar/grade';
-import type { LedgerHousehold, LedgerRun, LedgerWeek, SettlementHousehold, SettlementTotals, SyrupByClass, VolumeSplit } from './types';
+import type { LedgerHousehold, LedgerRun, LedgerRunSummary, LedgerWeek, SettlementHousehold, SettlementTotals, SyrupByClass, VolumeSplit } from './types';
 
 /** Pure rules of the season ledger: no database, no framework. */
 
@@ -245,8 +245,20 @@ export function round(x: number, digits: number): number {
   return Math.round(x * f) / f;
 }
 
-/** Runs with their allocations, for the ledger's drill-down. */
-export function ledgerRuns(runs: readonly RunRow[], allocations: readonly AllocationRow[]): LedgerRun[] {
+/** A run's totals from its allocations (sugar summed in ascending order, as everywhere). */
+function runTotals(run: RunRow, rows: readonly AllocationRow[]) {
+  return {
+    runId: run.runId,
+    lotCode: run.lotCode,
+    finishedAt: run.finishedAt,
+    syrupMl: rows.reduce((s, a) => s + a.syrupMl, 0),
+    fuelCents: rows.reduce((s, a) => s + a.fuelCents, 0),
+    sugarKg: sumAscending(rows.map((a) => a.sugarKg)),
+  };
+}
+
+/** Each finished run with its totals and how many households' sap went into it, for the ledger's list. */
+export function ledgerRuns(runs: readonly RunRow[], allocations: readonly AllocationRow[]): LedgerRunSummary[] {
   const byRun = new Map<string, AllocationRow[]>();
   for (const a of allocations) {
     const list = byRun.get(a.runId) ?? [];
@@ -255,24 +267,24 @@ export function ledgerRuns(runs: readonly RunRow[], allocations: readonly Alloca
   }
   return runs.map((r) => {
     const rows = byRun.get(r.runId) ?? [];
-    return {
-      runId: r.runId,
-      lotCode: r.lotCode,
-      finishedAt: r.finishedAt,
-      syrupMl: rows.reduce((s, a) => s + a.syrupMl, 0),
-      fuelCents: rows.reduce((s, a) => s + a.fuelCents, 0),
-      sugarKg: sumAscending(rows.map((a) => a.sugarKg)),
-      allocations: rows.map((a) => ({
-        householdId: a.householdId,
-        sapL: a.sapL,
-        sugarKg: a.sugarKg,
-        share: a.share,
-        syrupMl: a.syrupMl,
-        syrupByClassMl: a.syrupByClassMl,
-        fuelCents: a.fuelCents,
-      })),
-    };
+    return { ...runTotals(r, rows), households: rows.length };
   });
+}
+
+/** One run with its split between households (the ledger's drill-down); `rows` are that run's allocations. */
+export function ledgerRunSplit(run: RunRow, rows: readonly AllocationRow[]): LedgerRun {
+  return {
+    ...runTotals(run, rows),
+    allocations: rows.map((a) => ({
+      householdId: a.householdId,
+      sapL: a.sapL,
+      sugarKg: a.sugarKg,
+      share: a.share,
+      syrupMl: a.syrupMl,
+      syrupByClassMl: a.syrupByClassMl,
+      fuelCents: a.fuelCents,
+    })),
+  };
 }
 
 /** Sugar in accepted lots by week (weeks start on Monday in the co-op's time zone). */

@@ -2,15 +2,26 @@ import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { getSequelize } from '@/db';
 import { recordChange } from '@/lib/events';
-import { computeLedger, fail, insertSettlements, seasonOf, select, UUID } from './ledger-data';
+import {
+  ALLOCATION_COLUMNS,
+  allocationRow,
+  computeLedger,
+  fail,
+  insertSettlements,
+  seasonOf,
+  select,
+  UUID,
+  type AllocationDbRow,
+  type WholeLedger,
+} from './ledger-data';
 
 export { fail };
 import type { PersonCtx } from '@/lib/server/context';
-import { round, settlementRow, sumAscending } from './rules';
+import { ledgerRunSplit, round, settlementRow, sumAscending, type RunRow } from './rules';
 import { storedAllocation } from './allocate-run';
 import { enqueueStatements } from './statement-mail';
 import { loadStatement } from './statement-data';
-import type { FullLedger, Ledger, LedgerRun, Settlement, Statement } from './types';
+import type { Ledger, LedgerRun, Settlement, Statement } from './types';
 import type { SeasonDto } from '@/lib/coop/types';
 import { deepFreeze, processCache } from '@/lib/server/versioned-cache';
 
@@ -21,42 +32,27 @@ const requireCoordinator = (ctx: LedgerContext, what: string) => {
   if (ctx.actor.role !== 'coordinator') throw fail('forbidden', 'forbidden', `Only a coordinator can ${what}.`);
 };
 
-/** A run as the acting person may see it: a member, its own part only, and nothing of a run without its sap. */
-function runForActor(ctx: LedgerContext, run: LedgerRun): LedgerRun | null {
-  if (ctx.actor.role !== 'member') return run;
-  const own = ctx.actor.householdId;
-  const allocations = run.allocations.filter((a) => a.householdId === own);
-  return allocations.length ? { ...run, allocations } : null;
-}
-
-/** What a member may see: its own row, runs and statement, the co-op totals, the other names. */
-function forActor(ctx: LedgerContext, ledger: FullLedger): FullLedger {
-  if (ctx.actor.role !== 'member') return ledger;
-  const own = ctx.actor.householdId;
+/** The ledger as a member may see it: its own row, runs and statement, the co-op totals, the other names. */
+function forMember(whole: BuiltLedger, own: string | null): Ledger {
+  const { ledger } = whole;
+  const mine = (own && whole.runsOf.get(own)) || new Set<string>();
   return {
     ...ledger,
     households: ledger.households.filter((h) => h.householdId === own),
-    runs: ledger.runs.flatMap((run) => runForActor(ctx, run) ?? []),
+    runs: ledger.runs.filter((run) => mine.has(run.runId)).map((run) => ({ ...run, households: 1 })),
     weeks: ledger.weeks.map((w) => ({ week: w.week, sugarKg: own && own in w.sugarKg ? { [own]: w.sugarKg[own] } : {} })),
     statements: ledger.statements.filter((s) => s.householdId === own),
   };
 }
 
-/** The ledger's answer: each run with its totals; its split is asked for run by run. */
-function answer(full: FullLedger): Ledger {
-  return { ...full, runs: full.runs.map(({ allocations, ...run }) => ({ ...run, households: allocations.length })) };
-}
-
-/** The whole co-op's ledger (every run's split) and the JSON text of its answer, built once per co-op change version. */
-interface BuiltLedger {
-  full: FullLedger;
-  ledger: Ledger;
+/** The whole co-op's ledger, the runs of each household (for a member's view), and the JSON text of the answer, built once per co-op change version. */
+interface BuiltLedger extends WholeLedger {
   json: string;
 }
 
-// About 3 bytes of memory per character of JSON (the text and the objects it came from), the
-// run splits kept beside it about ten times the answer.
-const ledgers = processCache<BuiltLedger>('ledgers', 64 * 2 ** 20, (b) => 30 * b.json.length);
+// About 3 bytes of memory per character of JSON (the text and the objects it came from), and
+// about 64 bytes per run a household's sap went into (the member's lists).
+const ledgers = processCache<BuiltLedger>('ledgers', 64 * 2 ** 20, (b) => 3 * b.json.length + 64 * b.ledger.runs.reduce((n, r) => n + r.households, 0));
 
 /**
  * The whole co-op's ledger of a season. Every write the ledger shows (lots, runs, fees,
@@ -71,9 +67,9 @@ async function wholeLedger(ctx: LedgerContext, seasonId: string, knownVersion: s
   if (kept) return kept;
   const season = await seasonOf(ctx, seasonId);
   const build = async (): Promise<BuiltLedger> => {
-    const full = deepFreeze(await computeLedger(ctx, season));
-    const ledger = deepFreeze(answer(full));
-    return { full, ledger, json: JSON.stringify(ledger) };
+    const { ledger, runsOf } = await computeLedger(ctx, season);
+    deepFreeze(ledger);
+    return { ledger, runsOf, json: JSON.stringify(ledger) };
   };
   return ctx.transaction ? build() : ledgers.get(key, season.changeVersion, build);
 }
@@ -82,20 +78,36 @@ async function wholeLedger(ctx: LedgerContext, seasonId: string, knownVersion: s
 export async function ledgerView(ctx: LedgerContext, seasonId: string, { knownVersion }: KnownVersion = {}): Promise<{ ledger: Ledger; json: string }> {
   const whole = await wholeLedger(ctx, seasonId, knownVersion);
   if (ctx.actor.role !== 'member') return whole;
-  const own = answer(forActor(ctx, whole.full));
+  const own = forMember(whole, ctx.actor.householdId);
   return { ledger: own, json: JSON.stringify(own) };
 }
 
 /**
  * GET /api/seasons/:id/ledger/runs/:runId — one finished run's split between the households
- * whose sap went into it (a member: its own part, and 404 for a run without its sap).
+ * whose sap went into it (a member: its own part, and 404 for a run without its sap). One
+ * statement over that run's rows, whatever the size of the season.
  */
-export async function ledgerRun(ctx: LedgerContext, seasonId: string, runId: string, { knownVersion }: KnownVersion = {}): Promise<LedgerRun> {
-  const whole = await wholeLedger(ctx, seasonId, knownVersion);
-  const found = whole.full.runs.find((r) => r.runId === runId);
-  const run = found && runForActor(ctx, found);
-  if (!run) throw fail('not_found', 'not_found', 'That run was not found among this season’s finished runs.');
-  return run;
+export async function ledgerRun(ctx: LedgerContext, seasonId: string, runId: string): Promise<LedgerRun> {
+  const notFound = () => fail('not_found', 'not_found', 'That run was not found among this season’s finished runs.');
+  if (!UUID.test(seasonId) || !UUID.test(runId)) throw notFound();
+  const rows = await select<RunRow & Partial<AllocationDbRow>>(
+    `SELECT r.lot_code AS "lotCode",
+            to_char(r.finished_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS"Z"') AS "finishedAt", ${ALLOCATION_COLUMNS}
+       FROM boil_runs r
+       LEFT JOIN allocations a ON a.run_id = r.id AND a.cooperative_id = r.cooperative_id
+      WHERE r.id = :runId AND r.season_id = :seasonId AND r.cooperative_id = :cooperativeId AND r.status = 'finished'
+      ORDER BY a.household_id`,
+    { runId, seasonId, cooperativeId: ctx.cooperativeId },
+    ctx.transaction,
+  );
+  if (!rows.length) throw notFound();
+  const allocations = rows.filter((r): r is RunRow & AllocationDbRow => r.householdId != null).map(allocationRow);
+  // The run's totals are the whole run's, as in the ledger's list; a member sees its own part of the split.
+  const run = ledgerRunSplit({ runId, lotCode: rows[0].lotCode, finishedAt: rows[0].finishedAt }, allocations);
+  if (ctx.actor.role !== 'member') return run;
+  const own = run.allocations.filter((a) => a.householdId === ctx.actor.householdId);
+  if (!own.length) throw notFound();
+  return { ...run, allocations: own };
 }
 
 /**

@@ -111,11 +111,6 @@ export interface Ledger {
   statements: { id: string; householdId: string; sentAt: string | null }[];
 }
 
-/** The ledger as computed, with every run's split (kept on the server; answered in parts). */
-export interface FullLedger extends Omit<Ledger, 'runs'> {
-  runs: LedgerRun[];
-}
-
 /** One household's statement: the settlement row frozen at settlement time, with what was paid. */
 export interface Statement {
   id: string;

@@ -155,6 +155,14 @@ describe('the settlement by sugar (worked example of three households)', () => {
       expect(split.body.allocations.map((a: { householdId: string }) => a.householdId)).toEqual([ex.households.birch]);
     }
     expect(JSON.stringify(l)).not.toContain('"name":"Ash","sapL"');
+    // Ash's sap went into run 1 only: its list holds that run, and run 2's split is not found for it.
+    const ash = await signedIn(ex.emails.ash);
+    const ashLedger = (await ash.get(`/api/seasons/${ex.seasonId}/ledger`)).body;
+    expect(ashLedger.runs.map((r: { runId: string; households: number }) => [r.runId, r.households])).toEqual([[ex.runs.run1, 1]]);
+    expect((await ash.get(`/api/seasons/${ex.seasonId}/ledger/runs/${ex.runs.run2}`)).status).toBe(404);
+    const ashRun1 = (await ash.get(`/api/seasons/${ex.seasonId}/ledger/runs/${ex.runs.run1}`)).body;
+    expect(ashRun1).toMatchObject({ runId: ex.runs.run1, syrupMl: 15900, fuelCents: 13000 });
+    expect(ashRun1.allocations.map((a: { householdId: string; fuelCents: number }) => [a.householdId, a.fuelCents])).toEqual([[ex.households.ash, 10412]]);
     expect(Object.keys(l.weeks.reduce((a: object, w: { sugarKg: object }) => ({ ...a, ...w.sugarKg }), {}))).toEqual([ex.households.birch]);
   });
 

@@ -4,6 +4,5 @@ import { ledgerRun } from '@/lib/ledger/service';
 
 /** One finished run's split between households (the Season ledger's drill-down). A member sees its own part. */
 export const GET = route<{ id: string; runId: string }>(async ({ ctx, params }) => {
-  // Nothing was written in this request: the version read with the person may pick a kept ledger.
-  return json(await ledgerRun(ctx, params.id, params.runId, { knownVersion: ctx.changeVersion }));
+  return json(await ledgerRun(ctx, params.id, params.runId));
 });
