@@ -1,6 +1,7 @@
 // Server code only (it talks to the database), but without the 'server-only' marker: the Runs
 // service, server.ts and the tests import it under plain Node, where that marker throws.
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import { getSequelize } from '@/db';
 import { AppError } from '@/lib/server/errors';
 import type { GradeClass } from '@/lib/sugar/grade';
 import { allocateRunRows, type RunAllocation } from './rules';
@@ -43,9 +44,9 @@ const SELECT_STORED = `
          syrup_very_dark_ml AS "veryDark", fuel_cents AS "fuelCents"
     FROM allocations WHERE run_id = :runId AND cooperative_id = :cooperativeId ORDER BY household_id`;
 
-/** The run's stored allocation rows (for history and checks). */
-export async function storedAllocation(ctx: AllocateRunContext, runId: string): Promise<StoredAllocation[]> {
-  return sequelizeOf(ctx.transaction).query<StoredAllocation>(SELECT_STORED, {
+/** The run's stored allocation rows (for history, checks and the ledger's drill-down); outside a transaction, on the pool. */
+export async function storedAllocation(ctx: { cooperativeId: string; transaction?: Transaction }, runId: string): Promise<StoredAllocation[]> {
+  return (ctx.transaction ? sequelizeOf(ctx.transaction) : getSequelize()).query<StoredAllocation>(SELECT_STORED, {
     replacements: { runId, cooperativeId: ctx.cooperativeId },
     type: QueryTypes.SELECT,
     transaction: ctx.transaction,

@@ -4,7 +4,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { getSequelize } from '@/db';
 import { AppError, type ErrorKind, type FieldErrors } from '@/lib/server/errors';
 import { GRADE_CLASSES } from '@/lib/sugar/grade';
-import { ledgerRuns, settle, sugarByWeek, emptyByClass, type AllocationRow, type DeliveryRow } from './rules';
+import { ledgerRuns, settle, sugarByWeek, emptyByClass, type AllocationRow, type DeliveryRow, type RunRow } from './rules';
 import type { Ledger } from './types';
 
 /** What the ledger's reads need: the co-op, and the transaction when the caller holds one. */
@@ -77,10 +77,16 @@ export const allocationRow = (a: AllocationDbRow): AllocationRow => ({
   fuelCents: a.fuelCents,
 });
 
-/** The columns of an allocation the ledger reads (table alias `a`). */
-export const ALLOCATION_COLUMNS = `a.run_id AS "runId", a.household_id AS "householdId", a.sap_l AS "sapL", a.sugar_kg AS "sugarKg", a.share,
-              a.syrup_golden_ml AS golden, a.syrup_amber_ml AS amber, a.syrup_dark_ml AS dark, a.syrup_very_dark_ml AS "veryDark",
-              a.fuel_cents AS "fuelCents"`;
+/** A season's finished runs, oldest first; with `runId`, that run only (if it is one of them). */
+export function finishedRuns(ctx: LedgerReadContext, seasonId: string, runId?: string): Promise<RunRow[]> {
+  return select<RunRow>(
+    `SELECT id AS "runId", lot_code AS "lotCode", to_char(finished_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS"Z"') AS "finishedAt"
+       FROM boil_runs WHERE cooperative_id = :cooperativeId AND season_id = :seasonId AND status = 'finished'${runId ? ' AND id = :runId' : ''}
+      ORDER BY started_at, id`,
+    { cooperativeId: ctx.cooperativeId, seasonId, runId },
+    ctx.transaction,
+  );
+}
 
 /** The whole co-op's ledger of a season, and for each household the runs its sap went into (a member's list of runs). */
 export interface WholeLedger {
@@ -104,7 +110,7 @@ export async function computeLedger(ctx: LedgerReadContext, season: SeasonRow): 
       { householdId: string; name: string }[],
       DeliveryRow[],
       AllocationDbRow[],
-      { runId: string; lotCode: string | null; finishedAt: string | null }[],
+      RunRow[],
       { householdId: string; feeCents: number }[],
       { householdId: string; paidCents: string }[],
       { id: string; householdId: string; sentAt: string | null }[],
@@ -125,17 +131,14 @@ export async function computeLedger(ctx: LedgerReadContext, season: SeasonRow): 
       t,
     ),
     () => select<AllocationDbRow>(
-      `SELECT ${ALLOCATION_COLUMNS} FROM allocations a WHERE a.cooperative_id = :cooperativeId AND a.season_id = :seasonId`,
+      `SELECT run_id AS "runId", household_id AS "householdId", sap_l AS "sapL", sugar_kg AS "sugarKg", share,
+              syrup_golden_ml AS golden, syrup_amber_ml AS amber, syrup_dark_ml AS dark, syrup_very_dark_ml AS "veryDark",
+              fuel_cents AS "fuelCents"
+         FROM allocations WHERE cooperative_id = :cooperativeId AND season_id = :seasonId`,
       r,
       t,
     ),
-    () => select<{ runId: string; lotCode: string | null; finishedAt: string | null }>(
-      `SELECT id AS "runId", lot_code AS "lotCode", to_char(finished_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS"Z"') AS "finishedAt"
-         FROM boil_runs WHERE cooperative_id = :cooperativeId AND season_id = :seasonId AND status = 'finished'
-        ORDER BY started_at, id`,
-      r,
-      t,
-    ),
+    () => finishedRuns(ctx, season.id),
     () => select<{ householdId: string; feeCents: number }>(
       `SELECT household_id AS "householdId", fee_cents AS "feeCents" FROM season_fees WHERE cooperative_id = :cooperativeId AND season_id = :seasonId`,
       r,

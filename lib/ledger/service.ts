@@ -2,22 +2,11 @@ import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { getSequelize } from '@/db';
 import { recordChange } from '@/lib/events';
-import {
-  ALLOCATION_COLUMNS,
-  allocationRow,
-  computeLedger,
-  fail,
-  insertSettlements,
-  seasonOf,
-  select,
-  UUID,
-  type AllocationDbRow,
-  type WholeLedger,
-} from './ledger-data';
+import { allocationRow, computeLedger, fail, finishedRuns, insertSettlements, seasonOf, select, UUID, type WholeLedger } from './ledger-data';
 
 export { fail };
 import type { PersonCtx } from '@/lib/server/context';
-import { ledgerRunSplit, round, settlementRow, sumAscending, type RunRow } from './rules';
+import { ledgerRunSplit, round, settlementRow, sumAscending } from './rules';
 import { storedAllocation } from './allocate-run';
 import { enqueueStatements } from './statement-mail';
 import { loadStatement } from './statement-data';
@@ -84,26 +73,16 @@ export async function ledgerView(ctx: LedgerContext, seasonId: string, { knownVe
 
 /**
  * GET /api/seasons/:id/ledger/runs/:runId — one finished run's split between the households
- * whose sap went into it (a member: its own part, and 404 for a run without its sap). One
- * statement over that run's rows, whatever the size of the season.
+ * whose sap went into it (a member: its own part, and 404 for a run without its sap). Read from
+ * that run's rows alone, whatever the size of the season.
  */
 export async function ledgerRun(ctx: LedgerContext, seasonId: string, runId: string): Promise<LedgerRun> {
   const notFound = () => fail('not_found', 'not_found', 'That run was not found among this season’s finished runs.');
   if (!UUID.test(seasonId) || !UUID.test(runId)) throw notFound();
-  const rows = await select<RunRow & Partial<AllocationDbRow>>(
-    `SELECT r.lot_code AS "lotCode",
-            to_char(r.finished_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS"Z"') AS "finishedAt", ${ALLOCATION_COLUMNS}
-       FROM boil_runs r
-       LEFT JOIN allocations a ON a.run_id = r.id AND a.cooperative_id = r.cooperative_id
-      WHERE r.id = :runId AND r.season_id = :seasonId AND r.cooperative_id = :cooperativeId AND r.status = 'finished'
-      ORDER BY a.household_id`,
-    { runId, seasonId, cooperativeId: ctx.cooperativeId },
-    ctx.transaction,
-  );
-  if (!rows.length) throw notFound();
-  const allocations = rows.filter((r): r is RunRow & AllocationDbRow => r.householdId != null).map(allocationRow);
+  const [[found], stored] = await Promise.all([finishedRuns(ctx, seasonId, runId), storedAllocation(ctx, runId)]);
+  if (!found) throw notFound();
   // The run's totals are the whole run's, as in the ledger's list; a member sees its own part of the split.
-  const run = ledgerRunSplit({ runId, lotCode: rows[0].lotCode, finishedAt: rows[0].finishedAt }, allocations);
+  const run = ledgerRunSplit(found, stored.map((a) => allocationRow({ ...a, runId })));
   if (ctx.actor.role !== 'member') return run;
   const own = run.allocations.filter((a) => a.householdId === ctx.actor.householdId);
   if (!own.length) throw notFound();
