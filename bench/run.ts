@@ -97,7 +97,7 @@ async function main() {
       'rounds per figure': rounds,
       'seconds per run': durationS,
       'load generator': 'autocannon 9.0.0 (in the bench process)',
-      server: 'node --import tsx server.ts, NODE_ENV=production (next build)',
+      server: `node ${process.env.SERVER_NODE_ARGS ? process.env.SERVER_NODE_ARGS + ' ' : ''}--import tsx server.ts, NODE_ENV=production (next build)`,
     },
     figures: [],
     details: [],

@@ -55,7 +55,9 @@ export async function waitFor(url: string, timeoutMs = 90_000) {
 /** server.ts in production mode on `port`, with the bench-only routes switched on. */
 export async function startApp(name: string, port: number): Promise<{ child: ChildProcess; url: string }> {
   const url = `http://127.0.0.1:${port}`;
-  const child = startProcess(name, process.execPath, ['--import', 'tsx', 'server.ts'], {
+  // The same Node flags as npm start (scripts/lib.sh, which bench.sh sources).
+  const nodeArgs = (process.env.SERVER_NODE_ARGS ?? '').split(' ').filter(Boolean);
+  const child = startProcess(name, process.execPath, [...nodeArgs, '--import', 'tsx', 'server.ts'], {
     ...process.env,
     NODE_ENV: 'production',
     PORT: String(port),

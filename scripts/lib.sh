@@ -9,6 +9,13 @@ export S3_BUCKET=${S3_BUCKET:-brixhouse}
 PG_USER=brixhouse
 PG_PASSWORD=brixhouse
 
+# Node's flags for server.ts wherever it serves (npm start, the tests' server, the bench). A young
+# generation of 32 MB semi-spaces instead of V8's default 16 MB: a request's short-lived objects
+# are collected less often. Measured with the bench's load (50 connections, signed in, the same
+# build side by side, 3 interleaved rounds): 13–23 % more requests a second on the constant route,
+# the Boil queue and the Season ledger; its two semi-spaces take at most 32 MB more memory.
+export SERVER_NODE_ARGS=${SERVER_NODE_ARGS---max-semi-space-size=32}
+
 log() { printf '\033[1;32m▸\033[0m %s\n' "$*"; }
 
 # Every port the project listens on, with its base: a clone uses base + its slot.

@@ -55,4 +55,5 @@ cat <<BANNER
 
 BANNER
 echo $$ > "$DATA_DIR/server.pid"
-exec node --import tsx server.ts
+# shellcheck disable=SC2086 # the flags are words
+exec node $SERVER_NODE_ARGS --import tsx server.ts

@@ -11,4 +11,5 @@ bash scripts/pay.sh start pay-fake-test "$PAY_PORT"
 npm run --silent db:migrate -- --quiet > /dev/null
 [ -d "$NEXT_DIST_DIR" ] || npx next build > "$DATA_DIR/build-test.log" 2>&1
 require_free_port E2E_PORT "$E2E_PORT"
-exec node --import tsx server.ts
+# shellcheck disable=SC2086 # the flags are words
+exec node $SERVER_NODE_ARGS --import tsx server.ts

@@ -55,7 +55,8 @@ fi
 log "Starting the server on $APP_URL"
 stop_bg test-server
 require_free_port E2E_PORT "$E2E_PORT" || { echo "0 passed, 1 failed"; exit 1; }
-start_bg test-server node --import tsx server.ts
+# shellcheck disable=SC2086 # the flags are words
+start_bg test-server node $SERVER_NODE_ARGS --import tsx server.ts
 wait_for_url "$APP_URL/api/health" 200 || { tail -n 40 "$DATA_DIR/test-server.log"; echo "0 passed, 1 failed"; exit 1; }
 set +e
 
