@@ -32,7 +32,7 @@ export function ledgerCsv(l: Ledger): string {
     household: 'Co-op total',
     sap_l: round(t.sapL, 3),
     rejected_l: round(t.rejectedL, 3),
-    mean_brix: '',
+    mean_brix: t.meanBrix === null ? '' : round(t.meanBrix, 2),
     sugar_kg: round(t.sugarKg, 4),
     share: 1,
     syrup_ml: t.syrupMl,

@@ -4,7 +4,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { getSequelize } from '@/db';
 import { AppError, type ErrorKind, type FieldErrors } from '@/lib/server/errors';
 import { GRADE_CLASSES } from '@/lib/sugar/grade';
-import { ledgerRuns, settle, sugarByWeek, emptyByClass, type AllocationRow, type DeliveryRow, type RunRow } from './rules';
+import { coopMeanBrix, ledgerRuns, settle, sugarByWeek, emptyByClass, type AllocationRow, type DeliveryRow, type RunRow } from './rules';
 import type { Ledger } from './types';
 
 /** What the ledger's reads need: the co-op, and the transaction when the caller holds one. */
@@ -187,6 +187,7 @@ export async function computeLedger(ctx: LedgerReadContext, season: SeasonRow): 
       ...totals,
       sapL: sum((h) => h.sapL),
       rejectedL: sum((h) => h.rejectedL),
+      meanBrix: coopMeanBrix(rows),
       feeCents: sum((h) => h.feeCents),
       dueCents: sum((h) => h.dueCents),
       paidCents: sum((h) => h.paidCents),

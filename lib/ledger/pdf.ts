@@ -110,7 +110,7 @@ export function ledgerPdf(l: Ledger, cooperativeName: string): Promise<Buffer> {
         ]);
       }
       const t = l.totals;
-      row(['Co-op', formatVolume(t.sapL, u, { digits: 1 }), formatVolume(t.rejectedL, u, { digits: 1 }), '', formatMass(t.sugarKg, u, { digits: 1 }), '100.0 %', formatSyrup(t.syrupMl, u), money(t.fuelCents), money(t.feeCents), money(t.dueCents), money(t.paidCents), money(t.balanceCents), '', ''], true);
+      row(['Co-op', formatVolume(t.sapL, u, { digits: 1 }), formatVolume(t.rejectedL, u, { digits: 1 }), t.meanBrix === null ? '—' : t.meanBrix.toFixed(1), formatMass(t.sugarKg, u, { digits: 1 }), '100.0 %', formatSyrup(t.syrupMl, u), money(t.fuelCents), money(t.feeCents), money(t.dueCents), money(t.paidCents), money(t.balanceCents), '', ''], true);
       doc.moveDown(1).font('regular').fontSize(9).fillColor('#545e69');
       doc.text('Split by sugar delivered into each boil (largest remainder, whole millilitres and cents); the split by raw volume is shown for comparison only.', doc.page.margins.left, doc.y);
       doc.end();

@@ -225,6 +225,18 @@ export function settle(input: SettleInput): { households: LedgerHousehold[]; tot
   return { households, totals };
 }
 
+/** The co-op's mean °Brix: each household's mean weighted by the litres of accepted sap it delivered. */
+export function coopMeanBrix(households: readonly Pick<LedgerHousehold, 'sapL' | 'meanBrix'>[]): number | null {
+  let litres = 0;
+  let brixL = 0;
+  for (const h of households) {
+    if (h.meanBrix === null || h.sapL <= 0) continue;
+    litres += h.sapL;
+    brixL += h.meanBrix * h.sapL;
+  }
+  return litres > 0 ? brixL / litres : null;
+}
+
 /** The contract's settlement row from a ledger row (figures rounded once, for the answer). */
 export function settlementRow(h: SettlementHousehold): SettlementHousehold {
   return {

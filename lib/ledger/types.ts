@@ -98,6 +98,8 @@ export interface Ledger {
   totals: SettlementTotals & {
     sapL: number;
     rejectedL: number;
+    /** Mean °Brix of the co-op's accepted sap, weighted by litres (null before any accepted lot). */
+    meanBrix: number | null;
     feeCents: number;
     dueCents: number;
     paidCents: number;

@@ -100,6 +100,8 @@ describe('the settlement by sugar (worked example of three households)', () => {
     expect(cedar.rejectedL).toBe(100);
     expect(cedar.sapL).toBe(200);
     expect(cedar.meanBrix).toBe(2);
+    // The co-op's mean is over accepted litres only: (400 × 3.0 + 400 × 1.5 + 200 × 2.0) / 1,000 L.
+    expect(all.totals.meanBrix).toBeCloseTo(2.2, 10);
     expect(cedar.sugarKg).toBeCloseTo(4.024, 10);
     expect(cedar.sugarDeliveredKg).toBeCloseTo(4.024, 10);
     expect(all.weeks.reduce((s: number, w: { sugarKg: Record<string, number> }) => s + (w.sugarKg[ex.households.cedar] ?? 0), 0)).toBeCloseTo(4.024, 10);

@@ -105,7 +105,7 @@ export default async function LedgerPage({ searchParams }: { searchParams: Promi
               <TH scope="row">Co-op total</TH>
               <TD label="Sap delivered" numeric>{showVolume(t.sapL, u)}</TD>
               <TD label="Rejected" numeric>{showVolume(t.rejectedL, u)}</TD>
-              <TD label="Mean °Brix" numeric>—</TD>
+              <TD label="Mean °Brix" numeric>{t.meanBrix === null ? '—' : showBrix(t.meanBrix)}</TD>
               <TD label="Sugar" numeric>{showMass(t.sugarKg, u)}</TD>
               <TD label="Share" numeric>100.0 %</TD>
               <TD label="Syrup" numeric>{formatSyrup(t.syrupMl, u)}</TD>

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { fc, test } from '@fast-check/vitest';
-import { allocateRunRows, settle, settlementRow, splitByVolume, sugarByWeek, type AllocationRow } from '@/lib/ledger/rules';
+import { allocateRunRows, coopMeanBrix, settle, settlementRow, splitByVolume, sugarByWeek, type AllocationRow } from '@/lib/ledger/rules';
 import { GRADE_CLASSES } from '@/lib/sugar';
 
 /*
@@ -117,6 +117,14 @@ describe('settlement of the season', () => {
     expect(cedar.sapL).toBe(200);
     expect(cedar.meanBrix).toBe(2);
     expect(cedar.sugarDeliveredKg).toBeCloseTo(4.024, 10);
+  });
+
+  it('gives the co-op a mean °Brix weighted by accepted litres, the rejected lot left out', () => {
+    // (400 × 3.0 + 400 × 1.5 + 200 × 2.0) / 1,000 L; Cedar's rejected 100 L at 2.5 °Bx counts nowhere.
+    expect(coopMeanBrix(result.households)).toBeCloseTo(2.2, 12);
+    // A household without accepted sap weighs nothing; a co-op without any has no mean.
+    expect(coopMeanBrix([{ sapL: 0, meanBrix: null }, { sapL: 50, meanBrix: 2.4 }])).toBeCloseTo(2.4, 12);
+    expect(coopMeanBrix([{ sapL: 0, meanBrix: null }])).toBeNull();
   });
 
   it('shows paid and balance', () => {
