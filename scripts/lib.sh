@@ -12,8 +12,8 @@ PG_PASSWORD=brixhouse
 # Node's flags for server.ts wherever it serves (npm start, the tests' server, the bench). A young
 # generation of 32 MB semi-spaces instead of V8's default 16 MB: a request's short-lived objects
 # are collected less often. Measured with the bench's load (50 connections, signed in, the same
-# build side by side, 3 interleaved rounds): 13–23 % more requests a second on the constant route,
-# the Boil queue and the Season ledger; its two semi-spaces take at most 32 MB more memory.
+# build side by side, 3–4 interleaved rounds): 5–22 % more requests a second (medians) on six
+# routes (bench/ANALYSIS.md); its two semi-spaces take at most 32 MB more memory.
 export SERVER_NODE_ARGS=${SERVER_NODE_ARGS---max-semi-space-size=32}
 
 log() { printf '\033[1;32m▸\033[0m %s\n' "$*"; }
